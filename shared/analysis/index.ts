@@ -1,0 +1,11 @@
+export { analyzeChannel, type AnalysisSettings } from './analyzeChannel';
+export { findClipping, type ClippingFinding } from './clipping';
+export { DftPlan, dftPlan, dtftAt } from './dft';
+export { ENGINE_VERSION } from './engineVersion';
+export { estimateFrequency, type FrequencyEstimate } from './frequency';
+export { distortion, harmonics, type HarmonicsResult } from './harmonics';
+export { iecHarmonicGroups, mainsSystemOf } from './iec61000_4_7';
+export { meterModel, meterReadings, SINE_FORM_FACTOR, type MeterModelInput } from './meters';
+export type { Samples } from './samples';
+export { timeDomainFigures, type TimeDomainFigures } from './timeDomainFigures';
+export { wholeCycleWindow } from './wholeCycleWindow';
