@@ -1,0 +1,61 @@
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import type { AppContext } from './context';
+import { AppError, errorHandler } from './errors';
+import { requireSession } from './middleware/auth';
+import { authRoutes } from './routes/auth';
+import { healthRoutes } from './routes/health';
+import { projectRoutes } from './routes/projects';
+import { userRoutes } from './routes/users';
+
+const clientDir = path.resolve('dist/client');
+
+/** The Express application, without listening: tests boot it on port 0. */
+export function createApp(ctx: AppContext): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // PrimeVue writes its theme's CSS variables into <style> elements at run time.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          frameAncestors: ["'none'"],
+          formAction: ["'self'"],
+        },
+      },
+    }),
+  );
+  app.use(express.json({ limit: '1mb' }));
+  app.use(cookieParser());
+
+  const api = express.Router();
+  api.use(healthRoutes(ctx));
+  api.use(authRoutes(ctx));
+  // Everything below needs a signed-in user.
+  api.use(requireSession(ctx));
+  api.use(userRoutes(ctx));
+  api.use(projectRoutes(ctx));
+  api.use(() => {
+    throw new AppError(404, 'not_found', 'No such API route');
+  });
+  app.use('/api', api);
+
+  if (ctx.config.SERVE_CLIENT && existsSync(path.join(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(clientDir, 'index.html')));
+  }
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,183 @@
+import { sql } from 'drizzle-orm';
+import {
+  bigint,
+  boolean,
+  customType,
+  double,
+  index,
+  int,
+  json,
+  mysqlEnum,
+  mysqlTable,
+  primaryKey,
+  text,
+  timestamp,
+  varchar,
+} from 'drizzle-orm/mysql-core';
+
+/** Binary sample data: Buffer in, Buffer out. */
+const longblob = customType<{ data: Buffer; driverData: Buffer }>({
+  dataType: () => 'longblob',
+});
+
+/**
+ * An auto-increment primary key. Not drizzle's serial(): it emits `serial AUTO_INCREMENT`, which
+ * MariaDB rejects as a syntax error.
+ */
+const id = () => bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey();
+
+/** A foreign key to an id: unsigned bigint, never serial (which would mean AUTO_INCREMENT). */
+const ref = (name: string) => bigint(name, { mode: 'number', unsigned: true });
+
+export const users = mysqlTable('users', {
+  id: id(),
+  email: varchar('email', { length: 254 }).notNull().unique(),
+  name: varchar('name', { length: 120 }).notNull(),
+  passwordHash: varchar('password_hash', { length: 100 }).notNull(),
+  role: mysqlEnum('role', ['admin', 'engineer', 'viewer']).notNull(),
+  active: boolean('active').notNull().default(true),
+  createdAt: timestamp('created_at').notNull().defaultNow(),
+});
+
+export const projects = mysqlTable('projects', {
+  id: id(),
+  name: varchar('name', { length: 160 }).notNull(),
+  description: text('description').notNull(),
+  archived: boolean('archived').notNull().default(false),
+  createdBy: ref('created_by').references(() => users.id),
+  /** Set on the project that receives a user's uploads when none is named. */
+  defaultFor: ref('default_for').unique().references(() => users.id),
+  createdAt: timestamp('created_at').notNull().defaultNow(),
+});
+
+export const captureStatus = ['queued', 'processing', 'ready', 'failed'] as const;
+
+export const captures = mysqlTable(
+  'captures',
+  {
+    id: id(),
+    projectId: ref('project_id').notNull().references(() => projects.id),
+    name: varchar('name', { length: 200 }).notNull(),
+    status: mysqlEnum('status', captureStatus).notNull().default('queued'),
+    errorMessage: text('error_message'),
+    errorLine: int('error_line'),
+    uploadedBy: ref('uploaded_by').references(() => users.id),
+    originalName: varchar('original_name', { length: 255 }).notNull(),
+    sha256: varchar('sha256', { length: 64 }).notNull(),
+    sizeBytes: bigint('size_bytes', { mode: 'number' }).notNull(),
+    /** The original file, gzip-compressed, relative to DATA_DIR. */
+    originalPath: varchar('original_path', { length: 255 }),
+    /** Sample rate entered by the user for files that carry no time base. */
+    sampleRateHint: double('sample_rate_hint'),
+    sampleRate: double('sample_rate'),
+    sampleCount: bigint('sample_count', { mode: 'number' }),
+    t0: double('t0'),
+    detected: json('detected'),
+    metadata: json('metadata'),
+    tags: json('tags').$type<string[]>().notNull().default(sql`('[]')`),
+    engineVersion: int('engine_version'),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    readyAt: timestamp('ready_at'),
+  },
+  (t) => [index('captures_project').on(t.projectId), index('captures_sha').on(t.sha256)],
+);
+
+export const channels = mysqlTable(
+  'channels',
+  {
+    captureId: ref('capture_id').notNull().references(() => captures.id, { onDelete: 'cascade' }),
+    idx: int('idx').notNull(),
+    name: varchar('name', { length: 120 }).notNull(),
+    unit: varchar('unit', { length: 20 }).notNull(),
+    invalidCount: int('invalid_count').notNull().default(0),
+    analysis: json('analysis'),
+  },
+  (t) => [primaryKey({ columns: [t.captureId, t.idx] })],
+);
+
+/** Samples as little-endian Float32, in chunks of up to 2^20 per channel. */
+export const sampleChunks = mysqlTable(
+  'sample_chunks',
+  {
+    captureId: ref('capture_id').notNull().references(() => captures.id, { onDelete: 'cascade' }),
+    channelIdx: int('channel_idx').notNull(),
+    chunkIdx: int('chunk_idx').notNull(),
+    startIndex: bigint('start_index', { mode: 'number' }).notNull(),
+    count: int('count').notNull(),
+    data: longblob('data').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.captureId, t.channelIdx, t.chunkIdx] })],
+);
+
+/** Min/max pyramid: level L holds (min, max) Float32 pairs over buckets of bucketSize samples. */
+export const overviews = mysqlTable(
+  'overviews',
+  {
+    captureId: ref('capture_id').notNull().references(() => captures.id, { onDelete: 'cascade' }),
+    channelIdx: int('channel_idx').notNull(),
+    bucketSize: int('bucket_size').notNull(),
+    data: longblob('data').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.captureId, t.channelIdx, t.bucketSize] })],
+);
+
+export const jobs = mysqlTable(
+  'jobs',
+  {
+    id: id(),
+    kind: mysqlEnum('kind', ['ingest', 'reanalyse']).notNull(),
+    captureId: ref('capture_id').notNull().references(() => captures.id, { onDelete: 'cascade' }),
+    status: mysqlEnum('status', ['queued', 'running', 'done', 'failed']).notNull().default('queued'),
+    attempts: int('attempts').notNull().default(0),
+    lastError: text('last_error'),
+    lockedBy: varchar('locked_by', { length: 80 }),
+    heartbeatAt: timestamp('heartbeat_at'),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    finishedAt: timestamp('finished_at'),
+  },
+  (t) => [index('jobs_status').on(t.status, t.id)],
+);
+
+export const annotations = mysqlTable(
+  'annotations',
+  {
+    id: id(),
+    captureId: ref('capture_id').notNull().references(() => captures.id, { onDelete: 'cascade' }),
+    channelIdx: int('channel_idx'),
+    startS: double('start_s').notNull(),
+    endS: double('end_s').notNull(),
+    label: varchar('label', { length: 160 }).notNull(),
+    note: text('note').notNull(),
+    severity: mysqlEnum('severity', ['info', 'warning', 'fault']).notNull().default('info'),
+    /** 'finder' marks a suggestion of the anomaly finder, 'user' an engineer's own mark. */
+    source: mysqlEnum('source', ['user', 'finder']).notNull().default('user'),
+    state: mysqlEnum('state', ['active', 'suggested', 'dismissed']).notNull().default('active'),
+    reason: text('reason'),
+    createdBy: ref('created_by').references(() => users.id),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    updatedAt: timestamp('updated_at').notNull().defaultNow().onUpdateNow(),
+  },
+  (t) => [index('annotations_capture').on(t.captureId)],
+);
+
+export const comments = mysqlTable(
+  'comments',
+  {
+    id: id(),
+    captureId: ref('capture_id').notNull().references(() => captures.id, { onDelete: 'cascade' }),
+    body: text('body').notNull(),
+    createdBy: ref('created_by').references(() => users.id),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [index('comments_capture').on(t.captureId)],
+);
+
+export const comparisons = mysqlTable('comparisons', {
+  id: id(),
+  name: varchar('name', { length: 160 }).notNull(),
+  captureIds: json('capture_ids').$type<number[]>().notNull(),
+  settings: json('settings').notNull(),
+  createdBy: ref('created_by').references(() => users.id),
+  createdAt: timestamp('created_at').notNull().defaultNow(),
+});
+

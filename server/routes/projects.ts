@@ -1,0 +1,23 @@
+import { Router } from 'express';
+import { CreateProjectRequest, ProjectListQuery, UpdateProjectRequest } from '../../shared/schemas/project';
+import { IdParam } from '../../shared/schemas/user';
+import type { AppContext } from '../context';
+import { allow, currentUser } from '../middleware/auth';
+import { changeProject, createProject, getProject, projectsFor } from '../services/projectService';
+
+export function projectRoutes(ctx: AppContext): Router {
+  return Router()
+    .get('/projects', async (req, res) => {
+      const { archived } = ProjectListQuery.parse(req.query);
+      res.json({ items: await projectsFor(ctx, archived) });
+    })
+    .get('/projects/:id', async (req, res) => {
+      res.json({ project: await getProject(ctx, IdParam.parse(req.params).id) });
+    })
+    .post('/projects', allow('admin', 'engineer'), async (req, res) => {
+      res.status(201).json({ project: await createProject(ctx, currentUser(req).id, CreateProjectRequest.parse(req.body)) });
+    })
+    .patch('/projects/:id', allow('admin', 'engineer'), async (req, res) => {
+      res.json({ project: await changeProject(ctx, IdParam.parse(req.params).id, UpdateProjectRequest.parse(req.body)) });
+    });
+}

@@ -1,0 +1,51 @@
+import type { Server } from 'node:http';
+import { createApp } from './app';
+import { loadConfig, type Config } from './config';
+import type { AppContext } from './context';
+import { migrateDatabase, openDatabase } from './db/client';
+import { loadSessionKey } from './services/sessionSecret';
+import { ensureBootstrapAdmin } from './services/userService';
+
+export interface RunningServer {
+  ctx: AppContext;
+  server: Server;
+  url: string;
+  stop(): Promise<void>;
+}
+
+/** Migrates, bootstraps the admin, and listens. Used by `npm start` and by the API tests (port 0). */
+export async function startServer(overrides: Partial<Record<keyof Config, string>> = {}): Promise<RunningServer> {
+  const config = loadConfig({ ...process.env, ...overrides });
+  const database = openDatabase(config.DATABASE_URL);
+  const ctx: AppContext = {
+    config,
+    db: database.db,
+    sessionKey: await loadSessionKey(config.SESSION_SECRET, config.DATA_DIR),
+    pingDatabase: async () => {
+      try {
+        await database.pool.query('SELECT 1');
+        return true;
+      } catch {
+        return false;
+      }
+    },
+  };
+  await migrateDatabase(ctx.db);
+  await ensureBootstrapAdmin(ctx);
+  const app = createApp(ctx);
+  const server = await new Promise<Server>((resolve) => {
+    const s = app.listen(config.PORT, config.HOST, () => resolve(s));
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.PORT;
+  return {
+    ctx,
+    server,
+    url: `http://${config.HOST}:${port}`,
+    stop: async () => {
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeAllConnections();
+      await database.close();
+    },
+  };
+}

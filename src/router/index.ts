@@ -1,0 +1,42 @@
+import { createRouter, createWebHistory, type RouteLocationRaw, type RouteRecordRaw } from 'vue-router';
+import type { Role } from '../../shared/schemas/user';
+import { useSessionStore } from '../stores/session';
+
+export type AppRouteName = 'sign-in' | 'projects' | 'project' | 'admin-users' | 'account' | 'help' | 'not-found';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Reachable without signing in. */
+    public?: boolean;
+    /** Roles that may open it; any signed-in user when absent. */
+    roles?: Role[];
+  }
+}
+
+const routes: (RouteRecordRaw & { name: AppRouteName })[] = [
+  { path: '/sign-in', name: 'sign-in', component: () => import('../views/SignInView.vue'), meta: { public: true } },
+  { path: '/', name: 'projects', component: () => import('../views/ProjectsView.vue') },
+  { path: '/projects/:id', name: 'project', component: () => import('../views/ProjectView.vue'), props: (r) => ({ id: Number(r.params.id) }) },
+  { path: '/admin/users', name: 'admin-users', component: () => import('../views/AdminUsersView.vue'), meta: { roles: ['admin'] } },
+  { path: '/account', name: 'account', component: () => import('../views/AccountView.vue') },
+  { path: '/help', name: 'help', component: () => import('../views/HelpView.vue'), meta: { public: true } },
+  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('../views/NotFoundView.vue'), meta: { public: true } },
+];
+
+export const router = createRouter({ history: createWebHistory(), routes });
+
+router.beforeEach(async (to) => {
+  const session = useSessionStore();
+  await session.ensureLoaded();
+  if (to.meta.public) return to.name === 'sign-in' && session.user ? { name: 'projects' } : true;
+  if (!session.user) return { name: 'sign-in', query: { next: to.fullPath } };
+  if (to.meta.roles && !to.meta.roles.includes(session.user.role)) return { name: 'projects' };
+  return true;
+});
+
+/** A typed route location: a misspelt route name fails the type check. */
+export const to = (name: AppRouteName, params?: Record<string, string | number>, query?: Record<string, string>): RouteLocationRaw => ({
+  name,
+  params,
+  query,
+});

@@ -1,0 +1,41 @@
+import { definePreset } from '@primeuix/themes';
+import Aura from '@primeuix/themes/aura';
+
+/**
+ * Crestline's own look on PrimeVue's Aura base: a deep petrol primary, warm-grey surfaces, and an amber
+ * used only for cautions. Dark mode follows the `.crest-dark` class on <html>.
+ */
+export const CrestlinePreset = definePreset(Aura, {
+  primitive: {
+    petrol: {
+      50: '#eef8f7', 100: '#d5eeeb', 200: '#abdcd6', 300: '#78c3bb', 400: '#48a69d', 500: '#2b8a82',
+      600: '#216f69', 700: '#1d5a56', 800: '#1a4946', 900: '#173d3b', 950: '#0b2423',
+    },
+    stone: {
+      0: '#ffffff', 50: '#f8f7f4', 100: '#efede8', 200: '#e0ddd5', 300: '#c9c5ba', 400: '#a6a194', 500: '#857f72',
+      600: '#686357', 700: '#514d44', 800: '#393631', 900: '#25231f', 950: '#171613',
+    },
+  },
+  semantic: {
+    primary: {
+      50: '{petrol.50}', 100: '{petrol.100}', 200: '{petrol.200}', 300: '{petrol.300}', 400: '{petrol.400}', 500: '{petrol.500}',
+      600: '{petrol.600}', 700: '{petrol.700}', 800: '{petrol.800}', 900: '{petrol.900}', 950: '{petrol.950}',
+    },
+    colorScheme: {
+      light: {
+        surface: {
+          0: '#ffffff', 50: '{stone.50}', 100: '{stone.100}', 200: '{stone.200}', 300: '{stone.300}', 400: '{stone.400}',
+          500: '{stone.500}', 600: '{stone.600}', 700: '{stone.700}', 800: '{stone.800}', 900: '{stone.900}', 950: '{stone.950}',
+        },
+        primary: { color: '{petrol.700}', contrastColor: '#ffffff', hoverColor: '{petrol.800}', activeColor: '{petrol.900}' },
+      },
+      dark: {
+        surface: {
+          0: '#ffffff', 50: '#eceff0', 100: '#cfd5d6', 200: '#a9b3b5', 300: '#7f8b8d', 400: '#5d686a', 500: '#434d4f',
+          600: '#323a3c', 700: '#252c2e', 800: '#1b2123', 900: '#141819', 950: '#0d1011',
+        },
+        primary: { color: '{petrol.300}', contrastColor: '{petrol.950}', hoverColor: '{petrol.200}', activeColor: '{petrol.100}' },
+      },
+    },
+  },
+});
