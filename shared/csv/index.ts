@@ -1,0 +1,5 @@
+export { CaptureReader, readCaptureText, type CaptureData, type ChannelData } from './CaptureReader';
+export { parseColumnHeader, timeUnitScale } from './columnHeader';
+export { CsvError } from './CsvError';
+export { detectEncoding, type EncodingGuess } from './detectEncoding';
+export type { CaptureLayout } from './sniffLayout';
