@@ -7,6 +7,7 @@ import type { AppContext } from './context';
 import { AppError, errorHandler } from './errors';
 import { requireSession } from './middleware/auth';
 import { authRoutes } from './routes/auth';
+import { captureRoutes } from './routes/captures';
 import { healthRoutes } from './routes/health';
 import { projectRoutes } from './routes/projects';
 import { userRoutes } from './routes/users';
@@ -14,7 +15,7 @@ import { userRoutes } from './routes/users';
 const clientDir = path.resolve('dist/client');
 
 /** The Express application, without listening: tests boot it on port 0. */
-export function createApp(ctx: AppContext): Express {
+export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void } = {}): Express {
   const app = express();
   app.disable('x-powered-by');
   app.use(
@@ -47,6 +48,7 @@ export function createApp(ctx: AppContext): Express {
   api.use(requireSession(ctx));
   api.use(userRoutes(ctx));
   api.use(projectRoutes(ctx));
+  api.use(captureRoutes(ctx, hooks.onCaptureQueued ?? (() => undefined)));
   api.use(() => {
     throw new AppError(404, 'not_found', 'No such API route');
   });

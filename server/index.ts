@@ -2,7 +2,10 @@ import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from './db/seed';
 import { startServer } from './server';
 
 const running = await startServer();
-if (running.ctx.config.SEED_DEMO) await seedDemo(running.ctx);
+if (running.ctx.config.SEED_DEMO) {
+  await seedDemo(running.ctx);
+  running.processor.nudge();
+}
 console.log(`\n  Crestline is ready: ${running.url}`);
 if (running.ctx.config.SEED_DEMO) {
   console.log(`  Demo sign-in: ${DEMO_USERS[1].email} / ${DEMO_PASSWORD}`);

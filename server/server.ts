@@ -4,10 +4,12 @@ import { loadConfig, type Config } from './config';
 import type { AppContext } from './context';
 import { migrateDatabase, openDatabase } from './db/client';
 import { loadSessionKey } from './services/sessionSecret';
+import { CaptureProcessor } from './jobs/captureProcessor';
 import { ensureBootstrapAdmin } from './services/userService';
 
 export interface RunningServer {
   ctx: AppContext;
+  processor: CaptureProcessor;
   server: Server;
   url: string;
   stop(): Promise<void>;
@@ -32,7 +34,9 @@ export async function startServer(overrides: Partial<Record<keyof Config, string
   };
   await migrateDatabase(ctx.db);
   await ensureBootstrapAdmin(ctx);
-  const app = createApp(ctx);
+  const processor = new CaptureProcessor(ctx);
+  if (config.RUN_WORKER) processor.start();
+  const app = createApp(ctx, { onCaptureQueued: () => processor.nudge() });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(config.PORT, config.HOST, () => resolve(s));
   });
@@ -40,9 +44,11 @@ export async function startServer(overrides: Partial<Record<keyof Config, string
   const port = typeof address === 'object' && address ? address.port : config.PORT;
   return {
     ctx,
+    processor,
     server,
     url: `http://${config.HOST}:${port}`,
     stop: async () => {
+      await processor.stop();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
       await database.close();

@@ -59,6 +59,7 @@ export const captures = mysqlTable(
     projectId: ref('project_id').notNull().references(() => projects.id),
     name: varchar('name', { length: 200 }).notNull(),
     status: mysqlEnum('status', captureStatus).notNull().default('queued'),
+    errorCode: varchar('error_code', { length: 40 }),
     errorMessage: text('error_message'),
     errorLine: int('error_line'),
     uploadedBy: ref('uploaded_by').references(() => users.id),

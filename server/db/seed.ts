@@ -1,7 +1,13 @@
 import bcrypt from 'bcryptjs';
+import { writeFile, mkdir } from 'node:fs/promises';
+import path from 'node:path';
+import { demoCaptures, demoCsv } from '../demo/demoWaveforms';
+import { acceptUpload } from '../services/captureService';
 import type { AppContext } from '../context';
 import { findUserByEmail, insertUser } from './userRepository';
+import { eq } from 'drizzle-orm';
 import { insertProject, listProjects } from './projectRepository';
+import { captures } from './schema';
 import type { Role } from '../../shared/schemas/user';
 
 /** The invented demo scenario's people; every one signs in with DEMO_PASSWORD. */
@@ -20,11 +26,20 @@ export async function seedDemo(ctx: AppContext): Promise<void> {
   const hash = await bcrypt.hash(DEMO_PASSWORD, ctx.config.BCRYPT_COST);
   const ids: number[] = [];
   for (const u of DEMO_USERS) ids.push(await insertUser(ctx.db, { ...u, passwordHash: hash }));
-  if (!(await listProjects(ctx.db, 'all')).some((p) => p.name === DEMO_PROJECT)) {
-    await insertProject(ctx.db, {
-      name: DEMO_PROJECT,
-      description: 'Commissioning survey of an invented pumping station: drives, UPS, lighting and the incoming supply.',
-      createdBy: ids[1],
-    });
+  if ((await listProjects(ctx.db, 'all')).some((p) => p.name === DEMO_PROJECT)) return;
+  const projectId = await insertProject(ctx.db, {
+    name: DEMO_PROJECT,
+    description: 'Commissioning survey of an invented pumping station: drives, UPS, lighting and the incoming supply.',
+    createdBy: ids[1],
+  });
+  const engineer = { id: ids[1], ...DEMO_USERS[1] };
+  const dir = path.join(ctx.config.DATA_DIR, 'uploads');
+  await mkdir(dir, { recursive: true });
+  for (const c of demoCaptures()) {
+    const file = path.join(dir, `demo-${c.file}`);
+    const text = demoCsv(c);
+    await writeFile(file, text);
+    const { id } = await acceptUpload(ctx, engineer, { path: file, originalname: c.file, size: Buffer.byteLength(text) }, { name: c.name, projectId });
+    await ctx.db.update(captures).set({ tags: c.tags }).where(eq(captures.id, id));
   }
 }

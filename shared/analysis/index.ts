@@ -1,4 +1,5 @@
 export { analyzeChannel, type AnalysisSettings } from './analyzeChannel';
+export { analyzeValidSpan, type ValidSpanResult } from './analyzeValidSpan';
 export { findClipping, type ClippingFinding } from './clipping';
 export { DftPlan, dftPlan, dtftAt } from './dft';
 export { ENGINE_VERSION } from './engineVersion';

@@ -47,6 +47,7 @@ export const WarningCode = z.enum([
   'sampleRateTooLow',
   'clipping',
   'aperiodic',
+  'invalidSamples',
 ]);
 export type WarningCode = z.infer<typeof WarningCode>;
 

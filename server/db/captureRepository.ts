@@ -1,0 +1,111 @@
+import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
+import type { CaptureChannel, CaptureDetail, CaptureListQuery, CaptureSummary } from '../../shared/schemas/capture';
+import type { Db } from './client';
+import { captures, channels, users } from './schema';
+
+const summaryColumns = {
+  id: captures.id,
+  projectId: captures.projectId,
+  name: captures.name,
+  status: captures.status,
+  errorCode: captures.errorCode,
+  errorMessage: captures.errorMessage,
+  errorLine: captures.errorLine,
+  originalName: captures.originalName,
+  sizeBytes: captures.sizeBytes,
+  uploadedById: captures.uploadedBy,
+  uploadedByName: users.name,
+  createdAt: captures.createdAt,
+  sampleRate: captures.sampleRate,
+  sampleCount: captures.sampleCount,
+  tags: captures.tags,
+  channelCount: sql<number>`(SELECT COUNT(*) FROM channels ch WHERE ch.capture_id = ${captures.id})`,
+  keyFigures: sql<string | null>`(SELECT JSON_OBJECT('rms', JSON_VALUE(ch.analysis, '$.rms'), 'frequency', JSON_VALUE(ch.analysis, '$.frequency'), 'thdPercent', JSON_VALUE(ch.analysis, '$.thdPercent'), 'crestFactor', JSON_VALUE(ch.analysis, '$.crestFactor'), 'unit', ch.unit) FROM channels ch WHERE ch.capture_id = ${captures.id} AND ch.idx = 0)`,
+};
+
+type SummaryRow = { [K in keyof typeof summaryColumns]: unknown };
+
+const num = (v: unknown) => (v === null || v === undefined || v === 'null' ? null : Number(v));
+
+function toSummary(r: SummaryRow): CaptureSummary {
+  const key = typeof r.keyFigures === 'string' ? JSON.parse(r.keyFigures) : (r.keyFigures as Record<string, unknown> | null);
+  const sampleRate = num(r.sampleRate);
+  const sampleCount = num(r.sampleCount);
+  return {
+    id: r.id as number,
+    projectId: r.projectId as number,
+    name: r.name as string,
+    status: r.status as CaptureSummary['status'],
+    error: r.errorMessage ? { code: (r.errorCode as string) ?? 'invalid_csv', message: r.errorMessage as string, ...(r.errorLine != null ? { line: r.errorLine as number } : {}) } : null,
+    originalName: r.originalName as string,
+    sizeBytes: Number(r.sizeBytes),
+    uploadedBy: r.uploadedById ? { id: r.uploadedById as number, name: (r.uploadedByName as string) ?? '' } : null,
+    createdAt: (r.createdAt as Date).toISOString(),
+    sampleRate,
+    sampleCount,
+    durationS: sampleRate && sampleCount ? sampleCount / sampleRate : null,
+    channelCount: Number(r.channelCount),
+    tags: (typeof r.tags === 'string' ? JSON.parse(r.tags) : r.tags) as string[],
+    keyFigures:
+      key && key.rms !== null && key.rms !== undefined
+        ? { rms: Number(key.rms), frequency: num(key.frequency), thdPercent: num(key.thdPercent), crestFactor: num(key.crestFactor), unit: String(key.unit ?? '') }
+        : null,
+  };
+}
+
+export async function listCaptures(db: Db, q: CaptureListQuery): Promise<{ items: CaptureSummary[]; total: number }> {
+  const where: SQL[] = [];
+  if (q.projectId) where.push(eq(captures.projectId, q.projectId));
+  if (q.status) where.push(eq(captures.status, q.status));
+  if (q.q) where.push(or(like(captures.name, `%${q.q}%`), like(captures.originalName, `%${q.q}%`)) as SQL);
+  if (q.tag) where.push(sql`JSON_CONTAINS(${captures.tags}, JSON_QUOTE(${q.tag}))`);
+  const cond = where.length ? and(...where) : undefined;
+  const rows = await db
+    .select(summaryColumns)
+    .from(captures)
+    .leftJoin(users, eq(users.id, captures.uploadedBy))
+    .where(cond)
+    .orderBy(desc(captures.createdAt), desc(captures.id))
+    .limit(q.pageSize)
+    .offset((q.page - 1) * q.pageSize);
+  const [{ total }] = await db.select({ total: count() }).from(captures).where(cond);
+  return { items: rows.map(toSummary), total: Number(total) };
+}
+
+export async function findCaptureSummary(db: Db, id: number): Promise<CaptureSummary | null> {
+  const [row] = await db.select(summaryColumns).from(captures).leftJoin(users, eq(users.id, captures.uploadedBy)).where(eq(captures.id, id));
+  return row ? toSummary(row) : null;
+}
+
+export async function findCaptureDetail(db: Db, id: number): Promise<CaptureDetail | null> {
+  const summary = await findCaptureSummary(db, id);
+  if (!summary) return null;
+  const [row] = await db.select().from(captures).where(eq(captures.id, id));
+  const chans = await db.select().from(channels).where(eq(channels.captureId, id)).orderBy(asc(channels.idx));
+  const parse = <T>(v: unknown): T => (typeof v === 'string' ? JSON.parse(v) : v) as T;
+  return {
+    ...summary,
+    t0: row.t0,
+    sha256: row.sha256,
+    channels: chans.map((c): CaptureChannel => ({ index: c.idx, name: c.name, unit: c.unit, invalidCount: c.invalidCount })),
+    detected: parse(row.detected) ?? null,
+    metadata: parse(row.metadata) ?? [],
+    engineVersion: row.engineVersion,
+    readyAt: row.readyAt ? row.readyAt.toISOString() : null,
+  };
+}
+
+export async function findCaptureRow(db: Db, id: number) {
+  const [row] = await db.select().from(captures).where(eq(captures.id, id));
+  return row ?? null;
+}
+
+export async function findCaptureBySha(db: Db, sha256: string) {
+  const [row] = await db.select({ id: captures.id, status: captures.status }).from(captures).where(and(eq(captures.sha256, sha256), sql`${captures.status} <> 'failed'`)).limit(1);
+  return row ?? null;
+}
+
+export async function channelAnalyses(db: Db, id: number): Promise<unknown[]> {
+  const rows = await db.select({ analysis: channels.analysis }).from(channels).where(eq(channels.captureId, id)).orderBy(asc(channels.idx));
+  return rows.map((r) => (typeof r.analysis === 'string' ? JSON.parse(r.analysis) : r.analysis));
+}

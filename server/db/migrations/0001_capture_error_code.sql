@@ -1,0 +1,1 @@
+ALTER TABLE `captures` ADD `error_code` varchar(40);

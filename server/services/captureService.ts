@@ -1,0 +1,114 @@
+import { eq } from 'drizzle-orm';
+import { rm } from 'node:fs/promises';
+import { ENGINE_VERSION } from '../../shared/analysis';
+import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
+import type { User } from '../../shared/schemas/user';
+import type { AppContext } from '../context';
+import { channelAnalyses, findCaptureBySha, findCaptureDetail, findCaptureRow, listCaptures } from '../db/captureRepository';
+import { findProject } from '../db/projectRepository';
+import { captures, jobs } from '../db/schema';
+import { AppError, forbidden, notFound } from '../errors';
+import { enqueue } from '../jobs/jobQueue';
+import { keepOriginal, removeOriginal, sha256OfFile } from './originalFiles';
+import { defaultProjectId } from './projectService';
+
+export interface UploadedFile {
+  path: string;
+  originalname: string;
+  size: number;
+}
+
+/**
+ * Takes an uploaded file: recognises a second upload of the same bytes, files it under the named (or
+ * the uploader's default) project, keeps the original, and queues it for processing, all before
+ * answering, so the upload returns at once whatever the file's size.
+ */
+export async function acceptUpload(
+  ctx: AppContext,
+  user: User,
+  file: UploadedFile,
+  fields: { name?: string; projectId?: number; sampleRate?: number },
+): Promise<UploadResponse> {
+  try {
+    const sha256 = await sha256OfFile(file.path);
+    const existing = await findCaptureBySha(ctx.db, sha256);
+    if (existing) return { id: existing.id, status: existing.status, duplicate: true };
+    const projectId = fields.projectId ?? (await defaultProjectId(ctx, user.id, user.name));
+    const project = await findProject(ctx.db, projectId);
+    if (!project) throw notFound('Project');
+    if (project.archived) throw new AppError(409, 'project_archived', 'That project is archived; restore it before adding captures');
+    const name = fields.name || file.originalname.replace(/\.[^.]+$/, '') || 'Capture';
+    const id = await ctx.db.transaction(async (tx) => {
+      const [{ id }] = await tx
+        .insert(captures)
+        .values({ projectId, name: name.slice(0, 200), uploadedBy: user.id, originalName: file.originalname.slice(0, 255), sha256, sizeBytes: file.size, sampleRateHint: fields.sampleRate ?? null })
+        .$returningId();
+      const relative = await keepOriginal(ctx, file.path, id);
+      await tx.update(captures).set({ originalPath: relative }).where(eq(captures.id, id));
+      await tx.insert(jobs).values({ captureId: id, kind: 'ingest' });
+      return id;
+    });
+    return { id, status: 'queued', duplicate: false };
+  } finally {
+    await rm(file.path, { force: true });
+  }
+}
+
+export async function captureList(ctx: AppContext, q: CaptureListQuery): Promise<CaptureList> {
+  const { items, total } = await listCaptures(ctx.db, q);
+  return { items, total, page: q.page, pageSize: q.pageSize };
+}
+
+export async function captureDetail(ctx: AppContext, id: number): Promise<CaptureDetail> {
+  const c = await findCaptureDetail(ctx.db, id);
+  if (!c) throw notFound('Capture');
+  return c;
+}
+
+export async function captureAnalysis(ctx: AppContext, id: number): Promise<AnalysisResponse> {
+  const row = await findCaptureRow(ctx.db, id);
+  if (!row) throw notFound('Capture');
+  if (row.status !== 'ready') {
+    throw new AppError(409, 'not_ready', row.status === 'failed' ? `The capture failed: ${row.errorMessage}` : `The capture is ${row.status}; its analysis is not ready yet`);
+  }
+  return { engineVersion: row.engineVersion ?? 0, channels: (await channelAnalyses(ctx.db, id)) as AnalysisResponse['channels'] };
+}
+
+/** Only the uploader or an admin may change or delete a capture. */
+async function ownedCapture(ctx: AppContext, user: User, id: number) {
+  const row = await findCaptureRow(ctx.db, id);
+  if (!row) throw notFound('Capture');
+  if (user.role !== 'admin' && row.uploadedBy !== user.id) throw forbidden('Only its uploader or an admin may change this capture');
+  return row;
+}
+
+export async function deleteCapture(ctx: AppContext, user: User, id: number): Promise<void> {
+  const row = await ownedCapture(ctx, user, id);
+  await ctx.db.delete(captures).where(eq(captures.id, id));
+  await removeOriginal(ctx, row.originalPath);
+}
+
+export async function updateCapture(ctx: AppContext, user: User, id: number, req: UpdateCaptureRequest): Promise<CaptureDetail> {
+  await ownedCapture(ctx, user, id);
+  await ctx.db.update(captures).set(req).where(eq(captures.id, id));
+  return captureDetail(ctx, id);
+}
+
+/** A file without a time base failed asking for its sample rate: take it and process the file again. */
+export async function provideSampleRate(ctx: AppContext, user: User, id: number, sampleRate: number): Promise<CaptureDetail> {
+  const row = await ownedCapture(ctx, user, id);
+  if (row.status !== 'failed') throw new AppError(409, 'not_failed', 'Only a failed capture can be given a sample rate');
+  await ctx.db.transaction(async (tx) => {
+    await tx.update(captures).set({ sampleRateHint: sampleRate, status: 'queued', errorCode: null, errorMessage: null, errorLine: null }).where(eq(captures.id, id));
+    await tx.insert(jobs).values({ captureId: id, kind: 'ingest' });
+  });
+  return captureDetail(ctx, id);
+}
+
+/** Queues every ready capture analysed by an older engine for re-analysis; returns how many. */
+export async function reanalyseOutdated(ctx: AppContext): Promise<number> {
+  const rows = await ctx.db.select({ id: captures.id, engineVersion: captures.engineVersion }).from(captures).where(eq(captures.status, 'ready'));
+  const outdated = rows.filter((r) => (r.engineVersion ?? 0) < ENGINE_VERSION);
+  for (const r of outdated) await enqueue(ctx.db, r.id, 'reanalyse');
+  return outdated.length;
+}

@@ -1,0 +1,94 @@
+import { and, asc, eq, sql } from 'drizzle-orm';
+import type { SamplesQuery, SamplesResponse } from '../../shared/schemas/capture';
+import type { AppContext } from '../context';
+import { findCaptureRow } from '../db/captureRepository';
+import { channels, overviews, sampleChunks } from '../db/schema';
+import { AppError, notFound } from '../errors';
+
+const toFloat32 = (b: Buffer) => new Float32Array(b.buffer.slice(b.byteOffset, b.byteOffset + b.byteLength));
+const finite = (v: number) => (Number.isNaN(v) ? null : v);
+
+/** Samples [start, start+count) of a channel, reading only the bytes needed from each stored chunk. */
+async function readSamples(ctx: AppContext, captureId: number, channel: number, start: number, count: number): Promise<Float32Array> {
+  const out = new Float32Array(count);
+  const chunks = await ctx.db
+    .select({ startIndex: sampleChunks.startIndex, count: sampleChunks.count, chunkIdx: sampleChunks.chunkIdx })
+    .from(sampleChunks)
+    .where(and(eq(sampleChunks.captureId, captureId), eq(sampleChunks.channelIdx, channel), sql`${sampleChunks.startIndex} < ${start + count}`, sql`${sampleChunks.startIndex} + ${sampleChunks.count} > ${start}`))
+    .orderBy(asc(sampleChunks.chunkIdx));
+  for (const c of chunks) {
+    const from = Math.max(start, c.startIndex);
+    const to = Math.min(start + count, c.startIndex + c.count);
+    const [row] = await ctx.db
+      .select({ bytes: sql<Buffer>`SUBSTRING(${sampleChunks.data}, ${(from - c.startIndex) * 4 + 1}, ${(to - from) * 4})` })
+      .from(sampleChunks)
+      .where(and(eq(sampleChunks.captureId, captureId), eq(sampleChunks.channelIdx, channel), eq(sampleChunks.chunkIdx, c.chunkIdx)));
+    out.set(toFloat32(row.bytes), from - start);
+  }
+  return out;
+}
+
+/** Min and max of consecutive groups of `group` (min, max) pairs; NaN-only groups stay NaN. */
+function mergeBuckets(pairs: Float32Array, group: number): { min: (number | null)[]; max: (number | null)[] } {
+  const n = pairs.length / 2;
+  const min: (number | null)[] = [];
+  const max: (number | null)[] = [];
+  for (let g = 0; g < n; g += group) {
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (let j = g; j < Math.min(n, g + group); j++) {
+      if (pairs[2 * j] < lo) lo = pairs[2 * j];
+      if (pairs[2 * j + 1] > hi) hi = pairs[2 * j + 1];
+    }
+    min.push(lo === Infinity ? null : lo);
+    max.push(hi === -Infinity ? null : hi);
+  }
+  return { min, max };
+}
+
+/**
+ * A span of one channel at the resolution of the screen: the samples themselves when there are no more
+ * than `points`, else min/max per bucket from the stored pyramid (or from the samples, for spans too
+ * short for the finest level), so a 10-million-sample capture answers as fast as a small one.
+ */
+export async function sampleWindow(ctx: AppContext, captureId: number, q: SamplesQuery): Promise<SamplesResponse> {
+  const capture = await findCaptureRow(ctx.db, captureId);
+  if (!capture) throw notFound('Capture');
+  if (capture.status !== 'ready') throw new AppError(409, 'not_ready', `The capture is ${capture.status}; its samples are not ready yet`);
+  const [chan] = await ctx.db.select({ idx: channels.idx }).from(channels).where(and(eq(channels.captureId, captureId), eq(channels.idx, q.channel)));
+  if (!chan) throw notFound(`Channel ${q.channel}`);
+  const n = capture.sampleCount ?? 0;
+  const dt = 1 / (capture.sampleRate ?? 1);
+  const t0 = capture.t0 ?? 0;
+  const i0 = Math.min(n, Math.max(0, q.fromS === undefined ? 0 : Math.floor((q.fromS - t0) / dt)));
+  const i1 = Math.min(n, Math.max(i0, q.toS === undefined ? n : Math.ceil((q.toS - t0) / dt) + 1));
+  const count = i1 - i0;
+  const base = { channel: q.channel, startIndex: i0, sampleCount: count };
+  if (count <= q.points) {
+    const values = Array.from(await readSamples(ctx, captureId, q.channel, i0, count), finite);
+    return { ...base, mode: 'raw', t0S: t0 + i0 * dt, stepS: dt, values };
+  }
+  const perPoint = count / q.points;
+  const levels = await ctx.db
+    .select({ bucketSize: overviews.bucketSize })
+    .from(overviews)
+    .where(and(eq(overviews.captureId, captureId), eq(overviews.channelIdx, q.channel), sql`${overviews.bucketSize} <= ${perPoint}`))
+    .orderBy(sql`${overviews.bucketSize} DESC`)
+    .limit(1);
+  if (levels.length === 0) {
+    const group = Math.ceil(perPoint);
+    const samples = await readSamples(ctx, captureId, q.channel, i0, count);
+    const pairs = new Float32Array(count * 2);
+    for (let i = 0; i < count; i++) pairs[2 * i] = pairs[2 * i + 1] = samples[i];
+    return { ...base, mode: 'minmax', t0S: t0 + i0 * dt, stepS: group * dt, ...mergeBuckets(pairs, group) };
+  }
+  const bucket = levels[0].bucketSize;
+  const b0 = Math.floor(i0 / bucket);
+  const b1 = Math.ceil(i1 / bucket);
+  const [row] = await ctx.db
+    .select({ bytes: sql<Buffer>`SUBSTRING(${overviews.data}, ${b0 * 8 + 1}, ${(b1 - b0) * 8})` })
+    .from(overviews)
+    .where(and(eq(overviews.captureId, captureId), eq(overviews.channelIdx, q.channel), eq(overviews.bucketSize, bucket)));
+  const group = Math.ceil((b1 - b0) / q.points);
+  return { ...base, startIndex: b0 * bucket, mode: 'minmax', t0S: t0 + b0 * bucket * dt, stepS: group * bucket * dt, ...mergeBuckets(toFloat32(row.bytes), group) };
+}

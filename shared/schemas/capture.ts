@@ -1,0 +1,124 @@
+import { z } from 'zod';
+import { ChannelAnalysis } from './analysis';
+
+export const CaptureStatus = z.enum(['queued', 'processing', 'ready', 'failed']);
+export type CaptureStatus = z.infer<typeof CaptureStatus>;
+
+export const CaptureError = z.object({ code: z.string(), message: z.string(), line: z.number().int().optional() });
+export type CaptureError = z.infer<typeof CaptureError>;
+
+export const CaptureChannel = z.object({
+  index: z.number().int(),
+  name: z.string(),
+  unit: z.string(),
+  invalidCount: z.number().int(),
+});
+export type CaptureChannel = z.infer<typeof CaptureChannel>;
+
+/** What the reader found in the file, shown beside the capture. */
+export const DetectedFormat = z.object({
+  encoding: z.string(),
+  bom: z.boolean(),
+  lineEnding: z.string(),
+  delimiter: z.string(),
+  decimal: z.string(),
+  headerLine: z.number().int().nullable(),
+  unitsLine: z.number().int().nullable(),
+  dataStartLine: z.number().int(),
+  timeColumn: z.string().nullable(),
+  timeSource: z.enum(['column', 'preamble', 'given']),
+  timeDeviationSamples: z.number(),
+  rows: z.number().int(),
+});
+export type DetectedFormat = z.infer<typeof DetectedFormat>;
+
+export const CaptureSummary = z.object({
+  id: z.number().int(),
+  projectId: z.number().int(),
+  name: z.string(),
+  status: CaptureStatus,
+  error: CaptureError.nullable(),
+  originalName: z.string(),
+  sizeBytes: z.number(),
+  uploadedBy: z.object({ id: z.number().int(), name: z.string() }).nullable(),
+  createdAt: z.string(),
+  sampleRate: z.number().nullable(),
+  sampleCount: z.number().nullable(),
+  durationS: z.number().nullable(),
+  channelCount: z.number().int(),
+  tags: z.array(z.string()),
+  /** Key figures of the first channel, once analysed. */
+  keyFigures: z
+    .object({ rms: z.number(), frequency: z.number().nullable(), thdPercent: z.number().nullable(), crestFactor: z.number().nullable(), unit: z.string() })
+    .nullable(),
+});
+export type CaptureSummary = z.infer<typeof CaptureSummary>;
+
+export const CaptureDetail = CaptureSummary.extend({
+  t0: z.number().nullable(),
+  sha256: z.string(),
+  channels: z.array(CaptureChannel),
+  detected: DetectedFormat.nullable(),
+  metadata: z.array(z.object({ key: z.string(), value: z.string(), line: z.number().int() })),
+  engineVersion: z.number().int().nullable(),
+  readyAt: z.string().nullable(),
+});
+export type CaptureDetail = z.infer<typeof CaptureDetail>;
+
+export const CaptureListQuery = z.object({
+  projectId: z.coerce.number().int().positive().optional(),
+  status: CaptureStatus.optional(),
+  q: z.string().trim().max(200).optional(),
+  tag: z.string().trim().max(40).optional(),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+});
+export type CaptureListQuery = z.infer<typeof CaptureListQuery>;
+
+export const CaptureList = z.object({ items: z.array(CaptureSummary), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
+export type CaptureList = z.infer<typeof CaptureList>;
+
+/** Form fields that come with an uploaded file. */
+export const UploadFields = z.object({
+  name: z.string().trim().max(200).optional(),
+  projectId: z.coerce.number().int().positive().optional(),
+  sampleRate: z.coerce.number().positive().optional(),
+});
+
+export const UploadResponse = z.object({ id: z.number().int(), status: CaptureStatus, duplicate: z.boolean() });
+export type UploadResponse = z.infer<typeof UploadResponse>;
+
+export const UpdateCaptureRequest = z
+  .object({ name: z.string().trim().min(1).max(200).optional(), tags: z.array(z.string().trim().min(1).max(40)).max(20).optional() })
+  .refine((v) => Object.keys(v).length > 0, 'Nothing to change');
+export type UpdateCaptureRequest = z.infer<typeof UpdateCaptureRequest>;
+
+export const SampleRateRequest = z.object({ sampleRate: z.number().positive().max(1e12) });
+
+export const AnalysisResponse = z.object({ engineVersion: z.number().int(), channels: z.array(ChannelAnalysis) });
+export type AnalysisResponse = z.infer<typeof AnalysisResponse>;
+
+export const SamplesQuery = z.object({
+  channel: z.coerce.number().int().min(0),
+  fromS: z.coerce.number().optional(),
+  toS: z.coerce.number().optional(),
+  points: z.coerce.number().int().min(2).max(20000).default(2000),
+});
+export type SamplesQuery = z.infer<typeof SamplesQuery>;
+
+/**
+ * A span of one channel: the samples themselves (`raw`), or min/max per bucket (`minmax`) when the span
+ * holds more samples than points asked. Time of element i: t0S + i·stepS. Invalid samples are null.
+ */
+export const SamplesResponse = z.object({
+  channel: z.number().int(),
+  mode: z.enum(['raw', 'minmax']),
+  t0S: z.number(),
+  stepS: z.number(),
+  startIndex: z.number().int(),
+  sampleCount: z.number().int(),
+  values: z.array(z.number().nullable()).optional(),
+  min: z.array(z.number().nullable()).optional(),
+  max: z.array(z.number().nullable()).optional(),
+});
+export type SamplesResponse = z.infer<typeof SamplesResponse>;
