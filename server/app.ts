@@ -6,7 +6,9 @@ import path from 'node:path';
 import type { AppContext } from './context';
 import { AppError, errorHandler } from './errors';
 import { requireSession } from './middleware/auth';
+import { annotationRoutes } from './routes/annotations';
 import { authRoutes } from './routes/auth';
+import { comparisonRoutes } from './routes/comparisons';
 import { captureRoutes } from './routes/captures';
 import { healthRoutes } from './routes/health';
 import { projectRoutes } from './routes/projects';
@@ -49,6 +51,8 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   api.use(userRoutes(ctx));
   api.use(projectRoutes(ctx));
   api.use(captureRoutes(ctx, hooks.onCaptureQueued ?? (() => undefined)));
+  api.use(annotationRoutes(ctx));
+  api.use(comparisonRoutes(ctx));
   api.use(() => {
     throw new AppError(404, 'not_found', 'No such API route');
   });

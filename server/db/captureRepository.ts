@@ -65,7 +65,7 @@ export async function listCaptures(db: Db, q: CaptureListQuery): Promise<{ items
     .from(captures)
     .leftJoin(users, eq(users.id, captures.uploadedBy))
     .where(cond)
-    .orderBy(desc(captures.createdAt), desc(captures.id))
+    .orderBy((q.order === 'asc' ? asc : desc)(captures[q.sort]), desc(captures.id))
     .limit(q.pageSize)
     .offset((q.page - 1) * q.pageSize);
   const [{ total }] = await db.select({ total: count() }).from(captures).where(cond);

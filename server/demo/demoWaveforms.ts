@@ -89,16 +89,16 @@ export function demoCaptures(): DemoCapture[] {
       channels: [{ name: 'U-V', unit: 'V', at: (t, n) => (0.85 * Math.sin(TAU * 40 * t) > carrier(t) ? 560 : -560) + 2 * n() }],
     },
     {
-      file: 'supply-with-anomalies.csv', name: 'Pump start on the supply: sag, spike and clipping', tags: ['supply', 'anomalies'], sampleRate: 20000, seconds: 0.6,
+      file: 'supply-with-anomalies.csv', name: 'Pump start on the supply: sag, spike, then clipping in a swell', tags: ['supply', 'anomalies'], sampleRate: 20000, seconds: 0.6,
       channels: [
         {
           name: 'L1-N', unit: 'V',
           at: (t, n) => {
-            const sag = t >= 0.2 && t < 0.3 ? 0.82 : 1;
-            let v = mains(50, 325.3)(t) * sag + 0.3 * n();
-            if (Math.abs(t - 0.4505) < 0.0001) v += 900;
-            if (t >= 0.5) v = Math.max(-300, Math.min(300, v));
-            return v;
+            // A sag to 82 % while the pump starts, a switching spike, then a swell past the scope's ±340 V range.
+            const gain = t >= 0.2 && t < 0.3 ? 0.82 : t >= 0.5 ? 1.1 : 1;
+            let v = mains(50, 325.3)(t) * gain + 0.3 * n();
+            if (Math.abs(t - 0.4552) < 0.0001) v += 450;
+            return Math.max(-340, Math.min(340, v));
           },
         },
       ],

@@ -1,8 +1,8 @@
 import { randomBytes } from 'node:crypto';
 import { hostname } from 'node:os';
-import { eq, sql } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { AppContext } from '../context';
-import { captures, channels, jobs, overviews, sampleChunks } from '../db/schema';
+import { annotations, captures, channels, jobs, overviews, sampleChunks } from '../db/schema';
 import { compressOriginal, readableOriginal } from '../services/originalFiles';
 import type { IngestResult } from '../workers/ingestTask';
 import { IngestFailure, IngestWorkerClient } from '../workers/IngestWorkerClient';
@@ -27,6 +27,8 @@ async function clearStoredSamples(tx: Tx, captureId: number): Promise<void> {
   const [existing] = await tx.select({ n: sql<number>`COUNT(*)` }).from(channels).where(eq(channels.captureId, captureId));
   if (Number(existing.n) === 0) return;
   for (const table of [sampleChunks, overviews, channels]) await tx.delete(table).where(eq(table.captureId, captureId));
+  // Suggestions not yet acted on are replaced by the new run's; accepted or dismissed ones stay.
+  await tx.delete(annotations).where(and(eq(annotations.captureId, captureId), eq(annotations.source, 'finder'), eq(annotations.state, 'suggested')));
 }
 
 /** InnoDB may pick a transaction as a deadlock victim; it is then safe to run it again. */
@@ -153,6 +155,11 @@ export class CaptureProcessor {
           start += buf.length / 4;
         }
         for (const o of c.overviews) await tx.insert(overviews).values({ captureId: job.captureId, channelIdx: idx, bucketSize: o.bucketSize, data: asBuffer(o.data) });
+        if (c.suggestions.length) {
+          await tx.insert(annotations).values(
+            c.suggestions.map((a) => ({ captureId: job.captureId, channelIdx: idx, startS: a.startS, endS: a.endS, label: a.label, note: '', severity: a.severity, source: 'finder' as const, state: 'suggested' as const, reason: a.reason })),
+          );
+        }
       }
       await tx
         .update(captures)

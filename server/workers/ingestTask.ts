@@ -1,5 +1,5 @@
 import { closeSync, openSync, readSync } from 'node:fs';
-import { analyzeValidSpan, ENGINE_VERSION } from '../../shared/analysis';
+import { analyzeValidSpan, ENGINE_VERSION, findAnomalies, type AnomalySuggestion } from '../../shared/analysis';
 import { CsvError } from '../../shared/csv';
 import { readCaptureBytes } from '../../shared/csv/readCaptureBytes';
 import type { ChannelAnalysis } from '../../shared/schemas/analysis';
@@ -17,6 +17,7 @@ export interface IngestedChannel {
   unit: string;
   invalidCount: number;
   analysis: ChannelAnalysis;
+  suggestions: AnomalySuggestion[];
   chunks: Buffer[];
   overviews: { bucketSize: number; data: Buffer }[];
 }
@@ -59,6 +60,7 @@ export function ingestFile(req: IngestRequest): IngestResult {
       unit: c.unit,
       invalidCount: c.invalidCount,
       analysis: result.analysis,
+      suggestions: findAnomalies(c.samples, data.sampleRate, data.t0, result.analysis.frequency),
       chunks: float32Chunks(c.samples),
       overviews: overviewPyramid(c.samples).map((l) => ({ bucketSize: l.bucketSize, data: Buffer.from(l.minMax.buffer) })),
     };

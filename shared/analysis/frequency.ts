@@ -1,4 +1,5 @@
 import type { FrequencyDetail } from '../schemas/analysis';
+import { decimateByAverage } from './decimate';
 import { dtftAt } from './dft';
 import type { Samples } from './samples';
 
@@ -120,6 +121,8 @@ function spectralPeak(x: Samples, mean: number, count: number, guessCyclesPerSam
   return (a + b) / 2;
 }
 
+/** Records longer than this are averaged down to about this length for the smoothed and spectral steps. */
+const DECIMATED_LENGTH = 65536;
 /** Smoothing widths tried, as fractions of the record: a PWM carrier or switching noise averages out. */
 const SMOOTHING_DIVISORS = [1000, 200, 50];
 /** Spread above which the spectrum refines a crossing estimate (below it, the crossings are better). */
@@ -140,10 +143,12 @@ const SAME_PERIOD = 0.02;
  * rising more than once per cycle) whose component carries a real share of the AC RMS. Among
  * candidates of that same period, the least smoothed one is kept, its crossings being the sharpest.
  */
-function pickFundamental(x: Samples, found: Candidate[], mean: number, acRms: number): Candidate | null {
+function pickFundamental(coarse: Samples, factor: number, found: Candidate[], mean: number, acRms: number): Candidate | null {
   const hypotheses = found.flatMap((c) => [1, 2, 3].map((m) => ({ ...c, period: c.period * m, times: m === 1 ? c.times : c.times.filter((_, i) => i % m === 0) })));
   hypotheses.sort((a, b) => b.period - a.period);
-  const strong = hypotheses.find((h) => h.times.length >= 2 && x.length >= h.period && componentRms(x, mean, h.period) >= MIN_FUNDAMENTAL_SHARE * acRms);
+  const strong = hypotheses.find(
+    (h) => h.times.length >= 2 && coarse.length * factor >= h.period && componentRms(coarse, mean, h.period / factor) >= MIN_FUNDAMENTAL_SHARE * acRms,
+  );
   if (!strong) return null;
   return found.find((c) => Math.abs(c.period / strong.period - 1) < SAME_PERIOD) ?? strong;
 }
@@ -194,24 +199,30 @@ export function estimateFrequency(
   const scale = Math.max(Math.abs(mean), Math.abs(max), Math.abs(min));
   if (!(acRms > 1e-9 * scale)) return { hz: null, detail: null };
 
+  // Long records are averaged down for the smoothed detectors and the spectral checks: they look at
+  // the fundamental only, which a short average passes with a known, tiny loss.
+  const factor = Math.max(1, Math.floor(x.length / DECIMATED_LENGTH));
+  const coarse = factor > 1 ? decimateByAverage(x, factor) : x;
+  const toFine = (c: Candidate): Candidate => ({ ...c, period: c.period * factor, times: c.times.map((t) => (t + 0.5) * factor - 0.5) });
+
   const found: Candidate[] = [];
   const raw = candidateFrom(x, mean, 'zeroCrossing', 2);
   if (raw) found.push(raw);
   for (const divisor of SMOOTHING_DIVISORS) {
-    const width = Math.floor(x.length / divisor);
+    const width = Math.floor(coarse.length / divisor);
     if (width < 3) continue;
     // Four crossings at least: smoothed noise can line up two or three by chance.
-    const c = candidateFrom(movingAverage(x, width), mean, 'zeroCrossingSmoothed', 4);
-    if (c) found.push(c);
+    const c = candidateFrom(movingAverage(coarse, width), mean, 'zeroCrossingSmoothed', 4);
+    if (c) found.push(toFine(c));
   }
-  const chosen = pickFundamental(x, found, mean, acRms);
+  const chosen = pickFundamental(coarse, factor, found, mean, acRms);
   if (!chosen) return { hz: null, detail: null };
 
   let cyclesPerSample = 1 / chosen.period;
   let correction = 0;
   const cycles = x.length * cyclesPerSample;
   if ((chosen.spread > REFINE_ABOVE_SPREAD || chosen.method !== 'zeroCrossing') && cycles >= 4) {
-    const refined = spectralPeak(x, mean, x.length, cyclesPerSample);
+    const refined = spectralPeak(coarse, mean, coarse.length, cyclesPerSample * factor) / factor;
     correction = (refined - cyclesPerSample) / cyclesPerSample;
     cyclesPerSample = refined;
   }

@@ -1,7 +1,7 @@
 export { analyzeChannel, type AnalysisSettings } from './analyzeChannel';
 export { analyzeValidSpan, type ValidSpanResult } from './analyzeValidSpan';
 export { findClipping, type ClippingFinding } from './clipping';
-export { DftPlan, dftPlan, dtftAt } from './dft';
+export { DftPlan, dftBins, dftPlan, dtftAt } from './dft';
 export { ENGINE_VERSION } from './engineVersion';
 export { estimateFrequency, type FrequencyEstimate } from './frequency';
 export { distortion, harmonics, type HarmonicsResult } from './harmonics';
@@ -10,3 +10,5 @@ export { meterModel, meterReadings, SINE_FORM_FACTOR, type MeterModelInput } fro
 export type { Samples } from './samples';
 export { timeDomainFigures, type TimeDomainFigures } from './timeDomainFigures';
 export { wholeCycleWindow } from './wholeCycleWindow';
+export { meterExplanation } from './meterExplanation';
+export { findAnomalies, type AnomalySuggestion, type AnomalyOptions } from './findAnomalies';

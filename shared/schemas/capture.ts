@@ -72,6 +72,8 @@ export const CaptureListQuery = z.object({
   tag: z.string().trim().max(40).optional(),
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
+  sort: z.enum(['createdAt', 'name', 'status', 'sampleRate', 'sampleCount', 'sizeBytes']).default('createdAt'),
+  order: z.enum(['asc', 'desc']).default('desc'),
 });
 export type CaptureListQuery = z.infer<typeof CaptureListQuery>;
 
@@ -102,7 +104,8 @@ export const SamplesQuery = z.object({
   channel: z.coerce.number().int().min(0),
   fromS: z.coerce.number().optional(),
   toS: z.coerce.number().optional(),
-  points: z.coerce.number().int().min(2).max(20000).default(2000),
+  // Up to a million raw samples, for figures of a selected span computed in the browser.
+  points: z.coerce.number().int().min(2).max(1_000_000).default(2000),
 });
 export type SamplesQuery = z.infer<typeof SamplesQuery>;
 

@@ -2,7 +2,7 @@ import { createRouter, createWebHistory, type RouteLocationRaw, type RouteRecord
 import type { Role } from '../../shared/schemas/user';
 import { useSessionStore } from '../stores/session';
 
-export type AppRouteName = 'sign-in' | 'projects' | 'project' | 'admin-users' | 'account' | 'help' | 'not-found';
+export type AppRouteName = 'sign-in' | 'projects' | 'project' | 'capture' | 'compare' | 'comparison' | 'admin-users' | 'account' | 'help' | 'not-found';
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -17,6 +17,9 @@ const routes: (RouteRecordRaw & { name: AppRouteName })[] = [
   { path: '/sign-in', name: 'sign-in', component: () => import('../views/SignInView.vue'), meta: { public: true } },
   { path: '/', name: 'projects', component: () => import('../views/ProjectsView.vue') },
   { path: '/projects/:id', name: 'project', component: () => import('../views/ProjectView.vue'), props: (r) => ({ id: Number(r.params.id) }) },
+  { path: '/captures/:id', name: 'capture', component: () => import('../views/CaptureView.vue'), props: (r) => ({ id: Number(r.params.id) }) },
+  { path: '/compare', name: 'compare', component: () => import('../views/CompareView.vue') },
+  { path: '/comparisons/:id', name: 'comparison', component: () => import('../views/CompareView.vue'), props: (r) => ({ comparisonId: Number(r.params.id) }) },
   { path: '/admin/users', name: 'admin-users', component: () => import('../views/AdminUsersView.vue'), meta: { roles: ['admin'] } },
   { path: '/account', name: 'account', component: () => import('../views/AccountView.vue') },
   { path: '/help', name: 'help', component: () => import('../views/HelpView.vue'), meta: { public: true } },

@@ -56,6 +56,12 @@ describe('estimateFrequency', () => {
     expect(e.detail!.method).toBe('zeroCrossingSmoothed');
   });
 
+  it('a long record (2 M samples, 1 % noise, 5 % 3rd): within 0.01 %', () => {
+    const rand = seededRandom(11);
+    const x = signal(1_000_000, 2, (t) => 325 * Math.sin(2 * Math.PI * 49.93 * t) + 16 * Math.sin(3 * 2 * Math.PI * 49.93 * t) + gaussian(rand, 3.25));
+    expect(Math.abs(estimate(x, 1_000_000).hz! / 49.93 - 1)).toBeLessThan(1e-4);
+  });
+
   it('null on DC', () => {
     expect(estimate(new Float64Array(1000).fill(12), 1000).hz).toBeNull();
   });

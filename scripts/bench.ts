@@ -1,0 +1,184 @@
+/**
+ * Prints Crestline's speed and memory figures beside references, so a regression shows:
+ *   engine time-domain figures vs a naive loop; harmonics vs a full Bluestein transform;
+ *   CSV body parsing vs csv-parse; upload-to-ready vs a numpy script; peak memory of a 10 M-row
+ *   ingest; samples-endpoint latency on a 10 M-sample capture.
+ * Run through `npm run bench` (it starts the benchmark database). `--quick` skips the 10 M-row steps.
+ */
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { createWriteStream, mkdtempSync, openAsBlob, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { parse } from 'csv-parse/sync';
+import { analyzeChannel, dftPlan, harmonics, timeDomainFigures } from '../shared/analysis';
+import { readCaptureBytes } from '../shared/csv/readCaptureBytes';
+
+const quick = process.argv.includes('--quick');
+const work = mkdtempSync(path.join(tmpdir(), 'crestline-bench-'));
+const line = (label: string, value: string, reference = '') => console.log(`${label.padEnd(52)} ${value.padStart(16)}   ${reference}`);
+const best = (runs: number, fn: () => void) => {
+  let min = Infinity;
+  for (let i = 0; i < runs; i++) {
+    const t = performance.now();
+    fn();
+    min = Math.min(min, performance.now() - t);
+  }
+  return min;
+};
+
+function naiveFigures(x: Float64Array) {
+  let sum = 0, sumSq = 0, sumAbs = 0, min = Infinity, max = -Infinity;
+  for (let i = 0; i < x.length; i++) {
+    const v = x[i];
+    sum += v; sumSq += v * v; sumAbs += Math.abs(v);
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  const mean = sum / x.length;
+  let acAbs = 0, acSq = 0;
+  for (let i = 0; i < x.length; i++) { const d = x[i] - mean; acAbs += Math.abs(d); acSq += d * d; }
+  return sumSq + sumAbs + min + max + acAbs + acSq;
+}
+
+/** A 2-channel scope-style CSV of `rows` rows at 1 MS/s: 230 V mains and a rectifier-like current. */
+async function writeCsv(file: string, rows: number): Promise<number> {
+  const out = createWriteStream(file);
+  let bytes = 0;
+  const write = (s: string) => new Promise<void>((resolve) => { bytes += s.length; if (out.write(s)) resolve(); else out.once('drain', resolve); });
+  await write('Time (s),CH1 (V),CH2 (A)\n');
+  let block = '';
+  for (let i = 0; i < rows; i++) {
+    const t = i / 1e6;
+    const v = 325.27 * Math.sin(2 * Math.PI * 50 * t);
+    const a = Math.abs(v) > 300 ? Math.sign(v) * 6.2 * (Math.abs(v) - 300) / 25 : 0;
+    block += `${t.toFixed(7)},${v.toFixed(4)},${a.toFixed(5)}\n`;
+    if (block.length > 1 << 20) { await write(block); block = ''; }
+  }
+  await write(block);
+  await new Promise<void>((r) => out.end(r));
+  return bytes;
+}
+
+console.log(`Crestline bench (${new Date().toISOString()}), Node ${process.version}\n`);
+console.log(`${'measure'.padEnd(52)} ${'Crestline'.padStart(16)}   reference`);
+
+// 1. Engine
+const N = 10_000_000;
+const x = Float64Array.from({ length: N }, (_, i) => 325 * Math.sin((2 * Math.PI * 50 * i) / 1e6) + ((i * 7919) % 13) * 0.01);
+const oursMs = best(5, () => timeDomainFigures(x));
+const naiveMs = best(5, () => naiveFigures(x));
+line('time-domain figures, 10 M samples', `${(N / oursMs / 1e3).toFixed(0)} M samples/s`, `naive loop ${(N / naiveMs / 1e3).toFixed(0)} M/s; target ≥ 200 M/s`);
+const y = x.subarray(0, 1_000_000);
+const harmMs = best(5, () => harmonics(y, 0, y.length, 50, 1e6, 50));
+const fullMs = best(2, () => dftPlan(1_000_000).transform(y, 0, new Float64Array(1e6), new Float64Array(1e6)));
+line('harmonics 1..50, 1 M samples', `${harmMs.toFixed(0)} ms`, `full Bluestein DFT ${fullMs.toFixed(0)} ms; target < 100 ms`);
+line('whole channel analysis, 1 M samples', `${best(3, () => analyzeChannel(y, 1e6)).toFixed(0)} ms`, '(figures, frequency, harmonics, IEC groups, warnings)');
+
+// 2. CSV parsing
+const csv1 = path.join(work, 'one-million.csv');
+const size1 = await writeCsv(csv1, 1_000_000);
+const bytes1 = new Uint8Array(readFileSync(csv1));
+const chunks = Array.from({ length: Math.ceil(bytes1.length / (4 << 20)) }, (_, i) => bytes1.subarray(i * (4 << 20), (i + 1) * (4 << 20)));
+const parseMs = best(3, () => readCaptureBytes(chunks, { totalBytes: bytes1.length }));
+const text1 = Buffer.from(bytes1).toString('utf8');
+const csvParseMs = best(1, () => parse(text1, { cast: true, from_line: 2 }));
+const bareMs = best(3, () => {
+  // The floor on this machine: split on indexOf and convert with Number(), checking nothing.
+  let s = 0;
+  let pos = text1.indexOf('\n') + 1;
+  while (pos < text1.length) {
+    const nl = text1.indexOf('\n', pos);
+    let p = pos;
+    for (;;) {
+      let e = text1.indexOf(',', p);
+      if (e < 0 || e > nl) e = nl;
+      s += +text1.slice(p, e);
+      if (e === nl) break;
+      p = e + 1;
+    }
+    pos = nl + 1;
+  }
+  return s;
+});
+const mbps = (ms: number) => (size1 / 1e6 / (ms / 1000)).toFixed(0);
+line(`CSV reading, ${(size1 / 1e6).toFixed(0)} MB, 1 M rows`, `${mbps(parseMs)} MB/s`, `csv-parse cast:true ${mbps(csvParseMs)} MB/s; bare indexOf+Number loop ${mbps(bareMs)} MB/s; target ≥ 100 MB/s`);
+
+// 3. Upload to ready against numpy
+const url = process.env.BENCH_DATABASE_URL;
+if (!url) throw new Error('BENCH_DATABASE_URL is not set: run `npm run bench`');
+const port = 3990;
+const base = `http://127.0.0.1:${port}`;
+const server: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  env: { ...process.env, DATABASE_URL: url, PORT: String(port), SERVE_CLIENT: '0', SEED_DEMO: '0', DATA_DIR: path.join(work, 'data'), ADMIN_EMAIL: 'bench@bench.example', ADMIN_PASSWORD: 'bench-password-1', BCRYPT_COST: '4' },
+  stdio: ['ignore', 'ignore', 'inherit'],
+});
+const stopServer = () => server.kill('SIGINT');
+process.on('exit', stopServer);
+for (let i = 0; i < 300; i++) {
+  const ok = await fetch(`${base}/api/health`).then((r) => r.ok).catch(() => false);
+  if (ok) break;
+  await new Promise((r) => setTimeout(r, 100));
+}
+const login = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'bench@bench.example', password: 'bench-password-1' }) });
+const cookie = (login.headers.get('set-cookie') ?? '').split(';')[0];
+
+async function uploadAndWait(file: string, name: string): Promise<{ ms: number; id: number }> {
+  const t = performance.now();
+  const form = new FormData();
+  form.append('file', await openAsBlob(file), name);
+  const res = await fetch(`${base}/api/captures`, { method: 'POST', headers: { cookie }, body: form });
+  const { id } = (await res.json()) as { id: number };
+  for (;;) {
+    const c = (await (await fetch(`${base}/api/captures/${id}`, { headers: { cookie } })).json()) as { status: string; error: unknown };
+    if (c.status === 'ready') return { ms: performance.now() - t, id };
+    if (c.status === 'failed') throw new Error(`bench capture failed: ${JSON.stringify(c.error)}`);
+    await new Promise((r) => setTimeout(r, 20));
+  }
+}
+// Warm the worker thread (it compiles once per process) before timing.
+await uploadAndWait(csv1.replace('.csv', '-warm.csv'), 'warm.csv').catch(async () => {
+  await writeCsv(csv1.replace('.csv', '-warm.csv'), 1000);
+  return uploadAndWait(csv1.replace('.csv', '-warm.csv'), 'warm.csv');
+});
+const upload = await uploadAndWait(csv1, 'one-million.csv');
+const numpyScript = `
+import time, numpy as np, sys
+t = time.perf_counter()
+d = np.loadtxt(sys.argv[1], delimiter=',', skiprows=1)
+for c in (1, 2):
+    x = d[:, c]
+    m = x.mean(); r = np.sqrt((x * x).mean()); a = np.abs(x).mean(); p = np.abs(x).max(); s = np.fft.rfft(x)
+print(time.perf_counter() - t)
+`;
+const py = spawnSync('python3', ['-c', numpyScript, csv1]);
+if (py.status === 0) {
+  const numpyMs = Number(py.stdout.toString()) * 1000;
+  line(`upload → ready, ${(size1 / 1e6).toFixed(0)} MB, 1 M rows × 2 channels`, `${upload.ms.toFixed(0)} ms`, `numpy loadtxt+figures+FFT ${numpyMs.toFixed(0)} ms; ratio ${(upload.ms / numpyMs).toFixed(2)} (target ≤ 3)`);
+} else {
+  line(`upload → ready, ${(size1 / 1e6).toFixed(0)} MB, 1 M rows × 2 channels`, `${upload.ms.toFixed(0)} ms`, 'numpy reference skipped: python3 with numpy is missing');
+}
+
+// 4. 10 M rows: peak memory and zoom latency
+if (!quick) {
+  const csv10 = path.join(work, 'ten-million.csv');
+  const size10 = await writeCsv(csv10, 10_000_000);
+  const pid = server.pid;
+  const big = await uploadAndWait(csv10, 'ten-million.csv');
+  const status = readFileSync(`/proc/${pid}/status`, 'utf8');
+  const hwm = Number(/VmHWM:\s+(\d+)/.exec(status)?.[1] ?? 0) / 1024;
+  line(`ingest, ${(size10 / 1e6).toFixed(0)} MB, 10 M rows × 2 channels`, `${(big.ms / 1000).toFixed(1)} s`, `server peak resident ${hwm.toFixed(0)} MiB (target < 1024 MiB)`);
+  const times: number[] = [];
+  const duration = 10;
+  for (let i = 0; i < 40; i++) {
+    const span = duration / 2 ** (i % 20);
+    const from = ((i * 0.618) % 1) * (duration - span);
+    const t = performance.now();
+    const r = await fetch(`${base}/api/captures/${big.id}/samples?channel=${i % 2}&fromS=${from}&toS=${from + span}&points=2000`, { headers: { cookie } });
+    await r.json();
+    times.push(performance.now() - t);
+  }
+  times.sort((a, b) => a - b);
+  line('samples endpoint, 10 M samples, 40 zoom windows', `median ${times[20].toFixed(1)} ms`, `worst ${times[39].toFixed(1)} ms (target < 50 ms)`);
+}
+stopServer();
+rmSync(work, { recursive: true, force: true });

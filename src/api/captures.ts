@@ -1,0 +1,38 @@
+import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, SamplesResponse, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
+import { api, ApiError, toError } from './http';
+
+const query = (q: Record<string, string | number | undefined>) =>
+  Object.entries(q)
+    .filter(([, v]) => v !== undefined && v !== '')
+    .map(([k, v]) => `${encodeURIComponent(k)}=${encodeURIComponent(String(v))}`)
+    .join('&');
+
+export const listCaptures = (q: Partial<CaptureListQuery>) => api<CaptureList>('GET', `/captures?${query(q)}`);
+export const getCapture = (id: number) => api<CaptureDetail>('GET', `/captures/${id}`);
+export const getAnalysis = (id: number) => api<AnalysisResponse>('GET', `/captures/${id}/analysis`);
+export const deleteCapture = (id: number) => api<void>('DELETE', `/captures/${id}`);
+export const updateCapture = (id: number, req: UpdateCaptureRequest) => api<CaptureDetail>('PATCH', `/captures/${id}`, req);
+export const giveSampleRate = (id: number, sampleRate: number) => api<CaptureDetail>('POST', `/captures/${id}/sample-rate`, { sampleRate });
+export const getSamples = (id: number, q: { channel: number; fromS?: number; toS?: number; points: number }) =>
+  api<SamplesResponse>('GET', `/captures/${id}/samples?${query(q)}`);
+export const originalUrl = (id: number) => `/api/captures/${id}/original`;
+
+/** Uploads one file with progress (fetch cannot report upload progress, XMLHttpRequest can). */
+export function uploadCapture(file: File, fields: { projectId?: number; name?: string }, onProgress: (fraction: number) => void): Promise<UploadResponse> {
+  return new Promise((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open('POST', '/api/captures');
+    xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded / e.total);
+    xhr.onerror = () => reject(new ApiError(0, 'network', 'The upload did not reach the server'));
+    xhr.onload = async () => {
+      const res = new Response(xhr.responseText, { status: xhr.status, headers: { 'content-type': 'application/json' } });
+      if (xhr.status >= 200 && xhr.status < 300) resolve(JSON.parse(xhr.responseText));
+      else reject(await toError(res));
+    };
+    const form = new FormData();
+    if (fields.projectId) form.append('projectId', String(fields.projectId));
+    if (fields.name) form.append('name', fields.name);
+    form.append('file', file);
+    xhr.send(form);
+  });
+}

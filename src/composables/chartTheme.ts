@@ -1,0 +1,24 @@
+/** Crestline's channel colours, in channel order. */
+export const CHANNEL_COLOURS = ['#2b8a82', '#d08a1c', '#8e5ba8', '#4f6fb3', '#b3474f', '#5f8f3a'];
+
+/** Axis and grid colours read from the current theme, so charts follow light and dark mode. */
+export function chartColours() {
+  const css = getComputedStyle(document.documentElement);
+  const text = css.getPropertyValue('--p-text-muted-color').trim() || '#686357';
+  const grid = css.getPropertyValue('--p-content-border-color').trim() || '#e0ddd5';
+  return { text, grid };
+}
+
+export const axis = (label: string, scale?: string, side?: 1 | 3) => {
+  const { text, grid } = chartColours();
+  return {
+    label,
+    scale,
+    side,
+    stroke: text,
+    grid: { stroke: grid, width: 1 },
+    ticks: { stroke: grid, width: 1 },
+    font: '12px Inter, sans-serif',
+    labelFont: '12px Inter, sans-serif',
+  };
+};
