@@ -16,6 +16,10 @@ export function meterExplanation(a: ChannelAnalysis): string {
   if (Math.abs(avg) <= 2 && Math.abs(peak) <= 2) {
     return `The waveform is close to a sine (form factor ${acForm?.toFixed(3)}, crest factor ${acCrest?.toFixed(3)}), so all four meters agree within 2 %.`;
   }
+  const dir = (e: number) => `${Math.abs(e).toFixed(1)} % ${e > 0 ? 'high' : 'low'}`;
+  if (Math.abs(avg) > 2 && Math.abs(peak) > 2) {
+    return `The AC part's form factor is ${acForm?.toFixed(3)} (a sine's is ${SINE_FORM_FACTOR.toFixed(3)}) and its crest factor ${acCrest?.toFixed(3)} (a sine's is ${SINE_CREST_FACTOR.toFixed(3)}), so meters scaled for a sine read wrong: an averaging one ${dir(avg)}, a peak-responding one ${dir(peak)}.`;
+  }
   if (Math.abs(avg) >= Math.abs(peak)) {
     return `The form factor of the AC part is ${acForm?.toFixed(3)} where a sine's is ${SINE_FORM_FACTOR.toFixed(3)}, so an averaging meter scaled for a sine reads ${Math.abs(avg).toFixed(1)} % ${avg > 0 ? 'high' : 'low'}.`;
   }

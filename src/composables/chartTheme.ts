@@ -13,8 +13,9 @@ export const axis = (label: string, scale?: string, side?: 1 | 3) => {
   const { text, grid } = chartColours();
   return {
     label,
-    scale,
-    side,
+    // uPlot takes a key set to undefined as a value, so only pass scale and side when given.
+    ...(scale ? { scale } : {}),
+    ...(side ? { side } : {}),
     stroke: text,
     grid: { stroke: grid, width: 1 },
     ticks: { stroke: grid, width: 1 },
