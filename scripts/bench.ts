@@ -65,8 +65,8 @@ console.log(`${'measure'.padEnd(52)} ${'Crestline'.padStart(16)}   reference`);
 // 1. Engine
 const N = 10_000_000;
 const x = Float64Array.from({ length: N }, (_, i) => 325 * Math.sin((2 * Math.PI * 50 * i) / 1e6) + ((i * 7919) % 13) * 0.01);
-const oursMs = best(5, () => timeDomainFigures(x));
-const naiveMs = best(5, () => naiveFigures(x));
+const oursMs = best(10, () => timeDomainFigures(x));
+const naiveMs = best(10, () => naiveFigures(x));
 line('time-domain figures, 10 M samples', `${(N / oursMs / 1e3).toFixed(0)} M samples/s`, `naive loop ${(N / naiveMs / 1e3).toFixed(0)} M/s; target ≥ 200 M/s`);
 const y = x.subarray(0, 1_000_000);
 const harmMs = best(5, () => harmonics(y, 0, y.length, 50, 1e6, 50));

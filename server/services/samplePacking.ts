@@ -25,6 +25,18 @@ export interface OverviewLevel {
   minMax: Float32Array;
 }
 
+/** The bucket sizes `overviewPyramid` builds for a record of n samples, finest first. */
+export function overviewBucketSizes(n: number, stopAtBuckets = 2000): number[] {
+  if (n <= OVERVIEW_BASE * 2) return [];
+  const sizes = [OVERVIEW_BASE];
+  let buckets = Math.ceil(n / OVERVIEW_BASE);
+  while (buckets > stopAtBuckets) {
+    buckets = Math.ceil(buckets / OVERVIEW_FACTOR);
+    sizes.push(sizes[sizes.length - 1] * OVERVIEW_FACTOR);
+  }
+  return sizes;
+}
+
 /** The min/max pyramid that lets any zoom of a long record be drawn from a few thousand points. */
 export function overviewPyramid(samples: Float64Array, stopAtBuckets = 2000): OverviewLevel[] {
   const levels: OverviewLevel[] = [];

@@ -1,29 +1,29 @@
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { SamplesQuery, SamplesResponse } from '../../shared/schemas/capture';
 import type { AppContext } from '../context';
-import { findCaptureRow } from '../db/captureRepository';
-import { channels, overviews, sampleChunks } from '../db/schema';
+import { captures, channels, overviews, sampleChunks } from '../db/schema';
+import { CHUNK_SAMPLES, overviewBucketSizes } from './samplePacking';
 import { AppError, notFound } from '../errors';
 
 const toFloat32 = (b: Buffer) => new Float32Array(b.buffer.slice(b.byteOffset, b.byteOffset + b.byteLength));
 const finite = (v: number) => (Number.isNaN(v) ? null : v);
 
-/** Samples [start, start+count) of a channel, reading only the bytes needed from each stored chunk. */
+/**
+ * Samples [start, start+count) of a channel. Chunk k holds samples [k·CHUNK_SAMPLES, (k+1)·CHUNK_SAMPLES),
+ * so the chunks needed follow by arithmetic, and only their needed bytes are read.
+ */
 async function readSamples(ctx: AppContext, captureId: number, channel: number, start: number, count: number): Promise<Float32Array> {
   const out = new Float32Array(count);
-  const chunks = await ctx.db
-    .select({ startIndex: sampleChunks.startIndex, count: sampleChunks.count, chunkIdx: sampleChunks.chunkIdx })
-    .from(sampleChunks)
-    .where(and(eq(sampleChunks.captureId, captureId), eq(sampleChunks.channelIdx, channel), sql`${sampleChunks.startIndex} < ${start + count}`, sql`${sampleChunks.startIndex} + ${sampleChunks.count} > ${start}`))
-    .orderBy(asc(sampleChunks.chunkIdx));
-  for (const c of chunks) {
-    const from = Math.max(start, c.startIndex);
-    const to = Math.min(start + count, c.startIndex + c.count);
+  const first = Math.floor(start / CHUNK_SAMPLES);
+  const last = Math.floor((start + count - 1) / CHUNK_SAMPLES);
+  for (let k = first; k <= last; k++) {
+    const from = Math.max(start, k * CHUNK_SAMPLES);
+    const to = Math.min(start + count, (k + 1) * CHUNK_SAMPLES);
     const [row] = await ctx.db
-      .select({ bytes: sql<Buffer>`SUBSTRING(${sampleChunks.data}, ${(from - c.startIndex) * 4 + 1}, ${(to - from) * 4})` })
+      .select({ bytes: sql<Buffer>`SUBSTRING(${sampleChunks.data}, ${(from - k * CHUNK_SAMPLES) * 4 + 1}, ${(to - from) * 4})` })
       .from(sampleChunks)
-      .where(and(eq(sampleChunks.captureId, captureId), eq(sampleChunks.channelIdx, channel), eq(sampleChunks.chunkIdx, c.chunkIdx)));
-    out.set(toFloat32(row.bytes), from - start);
+      .where(and(eq(sampleChunks.captureId, captureId), eq(sampleChunks.channelIdx, channel), eq(sampleChunks.chunkIdx, k)));
+    if (row) out.set(toFloat32(row.bytes), from - start);
   }
   return out;
 }
@@ -52,11 +52,15 @@ function mergeBuckets(pairs: Float32Array, group: number): { min: (number | null
  * short for the finest level), so a 10-million-sample capture answers as fast as a small one.
  */
 export async function sampleWindow(ctx: AppContext, captureId: number, q: SamplesQuery): Promise<SamplesResponse> {
-  const capture = await findCaptureRow(ctx.db, captureId);
+  // One query for the capture and the channel: this endpoint answers every zoom step.
+  const [capture] = await ctx.db
+    .select({ status: captures.status, sampleCount: captures.sampleCount, sampleRate: captures.sampleRate, t0: captures.t0, channel: channels.idx })
+    .from(captures)
+    .leftJoin(channels, and(eq(channels.captureId, captures.id), eq(channels.idx, q.channel)))
+    .where(eq(captures.id, captureId));
   if (!capture) throw notFound('Capture');
   if (capture.status !== 'ready') throw new AppError(409, 'not_ready', `The capture is ${capture.status}; its samples are not ready yet`);
-  const [chan] = await ctx.db.select({ idx: channels.idx }).from(channels).where(and(eq(channels.captureId, captureId), eq(channels.idx, q.channel)));
-  if (!chan) throw notFound(`Channel ${q.channel}`);
+  if (capture.channel === null) throw notFound(`Channel ${q.channel}`);
   const n = capture.sampleCount ?? 0;
   const dt = 1 / (capture.sampleRate ?? 1);
   const t0 = capture.t0 ?? 0;
@@ -69,20 +73,14 @@ export async function sampleWindow(ctx: AppContext, captureId: number, q: Sample
     return { ...base, mode: 'raw', t0S: t0 + i0 * dt, stepS: dt, values };
   }
   const perPoint = count / q.points;
-  const levels = await ctx.db
-    .select({ bucketSize: overviews.bucketSize })
-    .from(overviews)
-    .where(and(eq(overviews.captureId, captureId), eq(overviews.channelIdx, q.channel), sql`${overviews.bucketSize} <= ${perPoint}`))
-    .orderBy(sql`${overviews.bucketSize} DESC`)
-    .limit(1);
-  if (levels.length === 0) {
+  const bucket = overviewBucketSizes(n).filter((b) => b <= perPoint).pop();
+  if (bucket === undefined) {
     const group = Math.ceil(perPoint);
     const samples = await readSamples(ctx, captureId, q.channel, i0, count);
     const pairs = new Float32Array(count * 2);
     for (let i = 0; i < count; i++) pairs[2 * i] = pairs[2 * i + 1] = samples[i];
     return { ...base, mode: 'minmax', t0S: t0 + i0 * dt, stepS: group * dt, ...mergeBuckets(pairs, group) };
   }
-  const bucket = levels[0].bucketSize;
   const b0 = Math.floor(i0 / bucket);
   const b1 = Math.ceil(i1 / bucket);
   const [row] = await ctx.db

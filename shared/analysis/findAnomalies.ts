@@ -24,18 +24,19 @@ export interface AnomalyOptions {
 
 const MAX_PER_KIND = 20;
 
-/** Consecutive flagged indices merged into [first, last] runs. */
-function runs(flags: boolean[]): [number, number][] {
+/** Runs [first, last] of consecutive indices 0..n−1 where `flagged(i)` holds; no flag array is built. */
+function runs(n: number, flagged: (i: number) => boolean): [number, number][] {
   const out: [number, number][] = [];
   let start = -1;
-  flags.forEach((f, i) => {
+  for (let i = 0; i < n; i++) {
+    const f = flagged(i);
     if (f && start < 0) start = i;
-    if (!f && start >= 0) {
+    else if (!f && start >= 0) {
       out.push([start, i - 1]);
       start = -1;
     }
-  });
-  if (start >= 0) out.push([start, flags.length - 1]);
+  }
+  if (start >= 0) out.push([start, n - 1]);
   return out;
 }
 
@@ -70,16 +71,16 @@ export function findAnomalies(x: Samples, sampleRate: number, t0: number, freque
 
   // Clipping: runs of three or more samples on a rail that findClipping judged to be clipped.
   for (const c of findClipping(x, 0, x.length, min, max)) {
-    const flags = Array.from(x, (v) => v === c.value);
-    for (const [a, b] of runs(flags).filter(([a, b]) => b - a >= 2).slice(0, MAX_PER_KIND)) {
+    for (const [a, b] of runs(x.length, (i) => x[i] === c.value).filter(([a, b]) => b - a >= 2).slice(0, MAX_PER_KIND)) {
       out.push({ kind: 'clipping', startS: t(a), endS: t(b + 1), severity: 'fault', label: 'Clipping', reason: `${b - a + 1} samples flat at the record's ${c.rail === 'max' ? 'maximum' : 'minimum'} (${c.value.toPrecision(4)}): the instrument's range was exceeded.` });
     }
   }
 
   // Dropouts: missing samples, or the signal flat for at least half a cycle (or 1 % of a non-periodic record).
   const flatMin = Math.max(8, Math.round(frequency ? sampleRate / frequency / 2 : x.length / 100));
-  const flat = Array.from(x, (v, i) => Number.isNaN(v) || (i > 0 && Math.abs(v - x[i - 1]) <= span * 1e-6));
-  for (const [a, b] of runs(flat).filter(([a, b]) => b - a + 1 >= flatMin).slice(0, MAX_PER_KIND)) {
+  const flatStep = span * 1e-6;
+  const flat = (i: number) => Number.isNaN(x[i]) || (i > 0 && Math.abs(x[i] - x[i - 1]) <= flatStep);
+  for (const [a, b] of runs(x.length, flat).filter(([a, b]) => b - a + 1 >= flatMin).slice(0, MAX_PER_KIND)) {
     if (out.some((o) => o.kind === 'clipping' && o.startS <= t(a) && o.endS >= t(b))) continue;
     const missing = Number.isNaN(x[a]);
     out.push({ kind: 'dropout', startS: t(a), endS: t(b + 1), severity: 'warning', label: missing ? 'Missing samples' : 'Dropout', reason: missing ? `${b - a + 1} samples are missing or overrange.` : `The signal stays flat for ${((b - a + 1) / sampleRate * 1000).toPrecision(3)} ms.` });
@@ -102,13 +103,18 @@ export function findAnomalies(x: Samples, sampleRate: number, t0: number, freque
   // Spikes: a sample far from the same point one cycle away, relative to the cycle RMS.
   const p = Math.round(period);
   const spikes: number[] = [];
+  const limit = spikeFactor * nominal;
   for (let i = p; i < x.length - p; i++) {
-    const expected = (x[i - p] + x[i + p]) / 2;
-    if (Math.abs(x[i] - expected) > spikeFactor * nominal && Math.abs(x[i] - x[i - p]) > spikeFactor * nominal && Math.abs(x[i] - x[i + p]) > spikeFactor * nominal) spikes.push(i);
+    const v = x[i];
+    if (Math.abs(v - x[i - p]) > limit && Math.abs(v - x[i + p]) > limit && Math.abs(v - (x[i - p] + x[i + p]) / 2) > limit) spikes.push(i);
   }
-  const spikeFlags = new Array(x.length).fill(false);
-  for (const i of spikes) spikeFlags[i] = true;
-  for (const [a, b] of runs(spikeFlags).slice(0, MAX_PER_KIND)) {
+  const spikeRuns: [number, number][] = [];
+  for (const i of spikes) {
+    const last = spikeRuns[spikeRuns.length - 1];
+    if (last && last[1] === i - 1) last[1] = i;
+    else spikeRuns.push([i, i]);
+  }
+  for (const [a, b] of spikeRuns.slice(0, MAX_PER_KIND)) {
     let worst = a;
     for (let i = a; i <= b; i++) if (Math.abs(x[i]) > Math.abs(x[worst])) worst = i;
     out.push({ kind: 'spike', startS: t(a), endS: t(b + 1), severity: 'warning', label: 'Spike', reason: `Reaches ${x[worst].toPrecision(4)} where the neighbouring cycles are near ${((x[worst - p] + x[worst + p]) / 2).toPrecision(4)}: more than ${spikeFactor}× the nominal cycle RMS (${nominal.toPrecision(4)}) away.` });
@@ -116,7 +122,7 @@ export function findAnomalies(x: Samples, sampleRate: number, t0: number, freque
 
   // Sags and swells: cycle RMS outside ±band of nominal, merged over consecutive cycles.
   for (const [kind, test] of [['sag', (r: number) => r < (1 - band) * nominal], ['swell', (r: number) => r > (1 + band) * nominal]] as const) {
-    for (const [a, b] of runs(cycleRms.map(test)).slice(0, MAX_PER_KIND)) {
+    for (const [a, b] of runs(cycleRms.length, (k) => test(cycleRms[k])).slice(0, MAX_PER_KIND)) {
       const extreme = kind === 'sag' ? Math.min(...cycleRms.slice(a, b + 1)) : Math.max(...cycleRms.slice(a, b + 1));
       out.push({
         kind,
@@ -146,8 +152,8 @@ export function findAnomalies(x: Samples, sampleRate: number, t0: number, freque
       crossings.push(j);
     }
   }
-  const off = crossings.slice(1).map((c, k) => Math.abs((c - crossings[k]) / period - 1) > freqTol);
-  for (const [a, b] of runs(off).slice(0, MAX_PER_KIND)) {
+  const off = (k: number) => Math.abs((crossings[k + 1] - crossings[k]) / period - 1) > freqTol;
+  for (const [a, b] of runs(crossings.length - 1, off).slice(0, MAX_PER_KIND)) {
     const len = (crossings[b + 1] - crossings[a]) / (b - a + 1);
     out.push({ kind: 'frequency', startS: t(crossings[a]), endS: t(crossings[b + 1]), severity: 'info', label: 'Frequency deviation', reason: `${b - a + 1} cycle(s) at about ${(sampleRate / len).toPrecision(4)} Hz against ${frequency.toPrecision(5)} Hz for the record (tolerance ±${(freqTol * 100).toFixed(1)} %).` });
   }
