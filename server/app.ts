@@ -6,12 +6,15 @@ import path from 'node:path';
 import type { AppContext } from './context';
 import { AppError, errorHandler } from './errors';
 import { requireSession } from './middleware/auth';
+import { accountLinkRoutes } from './routes/accountLinks';
+import { adminMailRoutes } from './routes/adminMail';
 import { annotationRoutes } from './routes/annotations';
 import { authRoutes } from './routes/auth';
 import { comparisonRoutes } from './routes/comparisons';
 import { captureRoutes } from './routes/captures';
 import { healthRoutes } from './routes/health';
 import { projectRoutes } from './routes/projects';
+import { sharedRoutes, shareRoutes } from './routes/shares';
 import { userRoutes } from './routes/users';
 
 const clientDir = path.resolve('dist/client');
@@ -46,6 +49,8 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   const api = express.Router();
   api.use(healthRoutes(ctx));
   api.use(authRoutes(ctx));
+  api.use(sharedRoutes(ctx));
+  api.use(accountLinkRoutes(ctx));
   // Everything below needs a signed-in user.
   api.use(requireSession(ctx));
   api.use(userRoutes(ctx));
@@ -53,6 +58,8 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   api.use(captureRoutes(ctx, hooks.onCaptureQueued ?? (() => undefined)));
   api.use(annotationRoutes(ctx));
   api.use(comparisonRoutes(ctx));
+  api.use(shareRoutes(ctx));
+  api.use(adminMailRoutes(ctx));
   api.use(() => {
     throw new AppError(404, 'not_found', 'No such API route');
   });

@@ -1,5 +1,6 @@
 import type { Config } from './config';
 import type { Db } from './db/client';
+import type { Mailer } from './mail/mailer';
 
 /** What routes and services need from the running server. */
 export interface AppContext {
@@ -7,6 +8,9 @@ export interface AppContext {
   db: Db;
   /** HS256 key for session tokens. */
   sessionKey: Uint8Array;
+  mailer: Mailer;
+  /** Base of links in mail, without a trailing slash. */
+  publicUrl: string;
   /** Answers whether the database is reachable, for /api/health. */
   pingDatabase(): Promise<boolean>;
 }

@@ -5,6 +5,8 @@ import type { AppContext } from './context';
 import { migrateDatabase, openDatabase } from './db/client';
 import { loadSessionKey } from './services/sessionSecret';
 import { CaptureProcessor } from './jobs/captureProcessor';
+import { createMailer } from './mail/mailer';
+import { startMailSink } from './mail/mailSink';
 import { ensureBootstrapAdmin } from './services/userService';
 
 export interface RunningServer {
@@ -19,9 +21,13 @@ export interface RunningServer {
 export async function startServer(overrides: Partial<Record<keyof Config, string>> = {}): Promise<RunningServer> {
   const config = loadConfig({ ...process.env, ...overrides });
   const database = openDatabase(config.DATABASE_URL);
+  await migrateDatabase(database.db);
+  const sink = config.SMTP_URL ? null : await startMailSink(database.db, config.SMTP_SINK_PORT);
   const ctx: AppContext = {
     config,
     db: database.db,
+    mailer: createMailer(config, sink?.port ?? null),
+    publicUrl: '',
     sessionKey: await loadSessionKey(config.SESSION_SECRET, config.DATA_DIR),
     pingDatabase: async () => {
       try {
@@ -32,7 +38,6 @@ export async function startServer(overrides: Partial<Record<keyof Config, string
       }
     },
   };
-  await migrateDatabase(ctx.db);
   await ensureBootstrapAdmin(ctx);
   const processor = new CaptureProcessor(ctx);
   if (config.RUN_WORKER) processor.start();
@@ -42,6 +47,7 @@ export async function startServer(overrides: Partial<Record<keyof Config, string
   });
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.PORT;
+  ctx.publicUrl = (config.PUBLIC_URL ?? `http://${config.HOST}:${port}`).replace(/\/$/, '');
   return {
     ctx,
     processor,
@@ -51,6 +57,7 @@ export async function startServer(overrides: Partial<Record<keyof Config, string
       await processor.stop();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
+      await sink?.close();
       await database.close();
     },
   };

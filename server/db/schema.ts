@@ -182,3 +182,44 @@ export const comparisons = mysqlTable('comparisons', {
   createdAt: timestamp('created_at').notNull().defaultNow(),
 });
 
+
+/** A read-only link to a capture or a saved comparison. Only the token's SHA-256 is stored. */
+export const shares = mysqlTable(
+  'shares',
+  {
+    id: id(),
+    tokenHash: varchar('token_hash', { length: 64 }).notNull().unique(),
+    captureId: ref('capture_id').references(() => captures.id, { onDelete: 'cascade' }),
+    comparisonId: ref('comparison_id').references(() => comparisons.id, { onDelete: 'cascade' }),
+    createdBy: ref('created_by').references(() => users.id),
+    email: varchar('email', { length: 254 }),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    expiresAt: timestamp('expires_at').notNull(),
+    revokedAt: timestamp('revoked_at'),
+    lastOpenedAt: timestamp('last_opened_at'),
+    openCount: int('open_count').notNull().default(0),
+  },
+  (t) => [index('shares_capture').on(t.captureId), index('shares_comparison').on(t.comparisonId)],
+);
+
+/** One-time links: an invitation to set a first password, or a password reset. */
+export const oneTimeTokens = mysqlTable('one_time_tokens', {
+  id: id(),
+  tokenHash: varchar('token_hash', { length: 64 }).notNull().unique(),
+  purpose: mysqlEnum('purpose', ['invite', 'reset']).notNull(),
+  userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  createdAt: timestamp('created_at').notNull().defaultNow(),
+  expiresAt: timestamp('expires_at').notNull(),
+  usedAt: timestamp('used_at'),
+});
+
+/** Messages caught by the local SMTP sink (when no SMTP_URL is set). */
+export const mailMessages = mysqlTable('mail_messages', {
+  id: id(),
+  recipients: varchar('recipients', { length: 1000 }).notNull(),
+  subject: varchar('subject', { length: 500 }).notNull(),
+  text: text('text').notNull(),
+  html: text('html').notNull(),
+  raw: text('raw').notNull(),
+  receivedAt: timestamp('received_at').notNull().defaultNow(),
+});

@@ -37,3 +37,16 @@ export const ChangePasswordRequest = z.object({ currentPassword: z.string().min(
 export type ChangePasswordRequest = z.infer<typeof ChangePasswordRequest>;
 
 export const IdParam = z.object({ id: z.coerce.number().int().positive() });
+
+export const InviteUserRequest = z.object({
+  email: z.string().trim().toLowerCase().email().max(254),
+  name: z.string().trim().min(1).max(120),
+  role: Role,
+});
+export type InviteUserRequest = z.infer<typeof InviteUserRequest>;
+
+export const ResetRequest = z.object({ email: z.string().trim().toLowerCase().email().max(254) });
+export type ResetRequest = z.infer<typeof ResetRequest>;
+
+export const SetPasswordRequest = z.object({ token: z.string().min(20).max(100), password: Password });
+export type SetPasswordRequest = z.infer<typeof SetPasswordRequest>;

@@ -26,6 +26,7 @@ export async function startTestServer(overrides: Partial<Record<keyof Config, st
     SERVE_CLIENT: '0',
     RUN_WORKER: '0',
     BCRYPT_COST: '4',
+    SMTP_SINK_PORT: '0',
     ADMIN_EMAIL: ADMIN.email,
     ADMIN_PASSWORD: ADMIN.password,
     ...overrides,

@@ -1,0 +1,54 @@
+import { Router } from 'express';
+import { SamplesQuery } from '../../shared/schemas/capture';
+import { CreateShareRequest } from '../../shared/schemas/share';
+import { IdParam } from '../../shared/schemas/user';
+import { z } from 'zod';
+import type { AppContext } from '../context';
+import { AppError, notFound } from '../errors';
+import { allow, currentUser } from '../middleware/auth';
+import { sampleWindow } from '../services/sampleWindowService';
+import { createShare, liveShares, revokeShare, sharedCaptureIds, sharedView } from '../services/shareService';
+
+/** Creating, listing and revoking links: signed-in engineers and admins. */
+export function shareRoutes(ctx: AppContext): Router {
+  return Router()
+    .post('/captures/:id/shares', allow('admin', 'engineer'), async (req, res) => {
+      res.status(201).json(await createShare(ctx, currentUser(req), { captureId: IdParam.parse(req.params).id }, CreateShareRequest.parse(req.body ?? {})));
+    })
+    .post('/comparisons/:id/shares', allow('admin', 'engineer'), async (req, res) => {
+      res.status(201).json(await createShare(ctx, currentUser(req), { comparisonId: IdParam.parse(req.params).id }, CreateShareRequest.parse(req.body ?? {})));
+    })
+    .get('/captures/:id/shares', allow('admin', 'engineer'), async (req, res) => {
+      res.json({ items: await liveShares(ctx, { captureId: IdParam.parse(req.params).id }) });
+    })
+    .get('/comparisons/:id/shares', allow('admin', 'engineer'), async (req, res) => {
+      res.json({ items: await liveShares(ctx, { comparisonId: IdParam.parse(req.params).id }) });
+    })
+    .delete('/shares/:id', allow('admin', 'engineer'), async (req, res) => {
+      await revokeShare(ctx, currentUser(req), IdParam.parse(req.params).id);
+      res.status(204).end();
+    });
+}
+
+const TokenParam = z.object({ token: z.string().min(20).max(100) });
+const TokenCaptureParams = TokenParam.extend({ captureId: z.coerce.number().int().positive() });
+
+/**
+ * What a share link opens, without a session: the token is the only credential, and it reads one
+ * capture or comparison. Any other method is refused here, by the server, not only hidden.
+ */
+export function sharedRoutes(ctx: AppContext): Router {
+  return Router()
+    .get('/shared/:token', async (req, res) => {
+      res.set('Cache-Control', 'no-store');
+      res.json(await sharedView(ctx, TokenParam.parse(req.params).token));
+    })
+    .get('/shared/:token/captures/:captureId/samples', async (req, res) => {
+      const { token, captureId } = TokenCaptureParams.parse(req.params);
+      if (!(await sharedCaptureIds(ctx, token)).includes(captureId)) throw notFound('This shared capture');
+      res.json(await sampleWindow(ctx, captureId, SamplesQuery.parse(req.query)));
+    })
+    .all(['/shared/:token', '/shared/:token/{*rest}'], () => {
+      throw new AppError(405, 'read_only', 'A shared link is read-only');
+    });
+}
