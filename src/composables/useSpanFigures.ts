@@ -1,7 +1,7 @@
 import { ref } from 'vue';
 import { analyzeChannel } from '../../shared/analysis';
 import type { ChannelAnalysis } from '../../shared/schemas/analysis';
-import type { CaptureDetail } from '../../shared/schemas/capture';
+import type { CaptureDetail, SamplesResponse } from '../../shared/schemas/capture';
 import { getSamples } from '../api/captures';
 
 /** Largest span whose samples are fetched for figures in the browser. */
@@ -21,7 +21,8 @@ export interface SpanFigures {
  * Figures of a selected span, computed at once in the browser by the same engine the server uses, on
  * the span's own samples.
  */
-export function useSpanFigures() {
+export function useSpanFigures(fetchSamples?: (captureId: number, q: { channel: number; fromS: number; toS: number; points: number }) => Promise<SamplesResponse>) {
+  const fetch = fetchSamples ?? getSamples;
   const span = ref<SpanFigures | null>(null);
   const busy = ref(false);
   const error = ref('');
@@ -42,7 +43,7 @@ export function useSpanFigures() {
     try {
       const channels: ChannelAnalysis[] = [];
       for (const ch of capture.channels) {
-        const s = await getSamples(capture.id, { channel: ch.index, fromS, toS, points: MAX_SPAN_SAMPLES });
+        const s = await fetch(capture.id, { channel: ch.index, fromS, toS, points: MAX_SPAN_SAMPLES });
         const x = Float64Array.from(s.values ?? [], (v) => (v === null ? NaN : v));
         const valid = x.filter((v) => !Number.isNaN(v));
         channels.push(analyzeChannel(valid.length === x.length ? x : valid, rate, { t0: s.t0S }));
