@@ -54,8 +54,9 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   // Everything below needs a signed-in user.
   api.use(requireSession(ctx));
   api.use(userRoutes(ctx));
-  api.use(projectRoutes(ctx));
-  api.use(captureRoutes(ctx, hooks.onCaptureQueued ?? (() => undefined)));
+  const onQueued = hooks.onCaptureQueued ?? (() => undefined);
+  api.use(projectRoutes(ctx, onQueued));
+  api.use(captureRoutes(ctx, onQueued));
   api.use(annotationRoutes(ctx));
   api.use(comparisonRoutes(ctx));
   api.use(shareRoutes(ctx));

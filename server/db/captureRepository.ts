@@ -100,8 +100,12 @@ export async function findCaptureRow(db: Db, id: number) {
   return row ?? null;
 }
 
-export async function findCaptureBySha(db: Db, sha256: string) {
-  const [row] = await db.select({ id: captures.id, status: captures.status }).from(captures).where(and(eq(captures.sha256, sha256), sql`${captures.status} <> 'failed'`)).limit(1);
+export async function findCaptureBySha(db: Db, projectId: number, sha256: string) {
+  const [row] = await db
+    .select({ id: captures.id, status: captures.status })
+    .from(captures)
+    .where(and(eq(captures.projectId, projectId), eq(captures.sha256, sha256), sql`${captures.status} <> 'failed'`))
+    .limit(1);
   return row ?? null;
 }
 

@@ -8,7 +8,7 @@ import { findUserByEmail, insertUser } from './userRepository';
 import { eq } from 'drizzle-orm';
 import { insertProject, listProjects } from './projectRepository';
 import { captures } from './schema';
-import type { Role } from '../../shared/schemas/user';
+import type { Role, User } from '../../shared/schemas/user';
 
 /** The invented demo scenario's people; every one signs in with DEMO_PASSWORD. */
 export const DEMO_PASSWORD = 'crestline-demo';
@@ -32,14 +32,26 @@ export async function seedDemo(ctx: AppContext): Promise<void> {
     description: 'Commissioning survey of an invented pumping station: drives, UPS, lighting and the incoming supply.',
     createdBy: ids[1],
   });
-  const engineer = { id: ids[1], ...DEMO_USERS[1] };
+  await addDemoCaptures(ctx, { id: ids[1], ...DEMO_USERS[1] }, projectId);
+}
+
+/**
+ * Files the invented demo captures (waveforms on which meters disagree) under a project, through the
+ * same upload path as any file. A capture already uploaded elsewhere is recognised and not copied.
+ */
+export async function addDemoCaptures(ctx: AppContext, user: User, projectId: number): Promise<number> {
   const dir = path.join(ctx.config.DATA_DIR, 'uploads');
   await mkdir(dir, { recursive: true });
+  let added = 0;
   for (const c of demoCaptures()) {
-    const file = path.join(dir, `demo-${c.file}`);
+    const file = path.join(dir, `demo-${process.pid}-${c.file}`);
     const text = demoCsv(c);
     await writeFile(file, text);
-    const { id } = await acceptUpload(ctx, engineer, { path: file, originalname: c.file, size: Buffer.byteLength(text) }, { name: c.name, projectId });
-    await ctx.db.update(captures).set({ tags: c.tags }).where(eq(captures.id, id));
+    const r = await acceptUpload(ctx, user, { path: file, originalname: c.file, size: Buffer.byteLength(text) }, { name: c.name, projectId });
+    if (!r.duplicate) {
+      added++;
+      await ctx.db.update(captures).set({ tags: c.tags }).where(eq(captures.id, r.id));
+    }
   }
+  return added;
 }

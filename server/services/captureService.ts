@@ -19,8 +19,8 @@ export interface UploadedFile {
 }
 
 /**
- * Takes an uploaded file: recognises a second upload of the same bytes, files it under the named (or
- * the uploader's default) project, keeps the original, and queues it for processing, all before
+ * Takes an uploaded file: files it under the named (or the uploader's default) project, recognises a
+ * second upload of the same bytes to that project as the existing capture, keeps the original, and queues it for processing, all before
  * answering, so the upload returns at once whatever the file's size.
  */
 export async function acceptUpload(
@@ -30,13 +30,13 @@ export async function acceptUpload(
   fields: { name?: string; projectId?: number; sampleRate?: number },
 ): Promise<UploadResponse> {
   try {
-    const sha256 = await sha256OfFile(file.path);
-    const existing = await findCaptureBySha(ctx.db, sha256);
-    if (existing) return { id: existing.id, status: existing.status, duplicate: true };
     const projectId = fields.projectId ?? (await defaultProjectId(ctx, user.id, user.name));
     const project = await findProject(ctx.db, projectId);
     if (!project) throw notFound('Project');
     if (project.archived) throw new AppError(409, 'project_archived', 'That project is archived; restore it before adding captures');
+    const sha256 = await sha256OfFile(file.path);
+    const existing = await findCaptureBySha(ctx.db, projectId, sha256);
+    if (existing) return { id: existing.id, status: existing.status, duplicate: true };
     const name = fields.name || file.originalname.replace(/\.[^.]+$/, '') || 'Capture';
     const id = await ctx.db.transaction(async (tx) => {
       const [{ id }] = await tx

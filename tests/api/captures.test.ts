@@ -53,8 +53,8 @@ describe('uploading a capture', () => {
     expect(c.keyFigures.rms).toBeCloseTo(230, 6);
   });
 
-  it('recognises a second upload of the same file as the existing capture', async () => {
-    const res = await uploadText(other, 'copy-of-mains.csv', sineCsv(230 * Math.SQRT2, 50, 10000, 0.2));
+  it('recognises a second upload of the same file to the project as the existing capture', async () => {
+    const res = await uploadText(other, 'copy-of-mains.csv', sineCsv(230 * Math.SQRT2, 50, 10000, 0.2), { projectId });
     expect(res.status).toBe(200);
     expect(res.body).toEqual({ id, status: 'ready', duplicate: true });
   });
@@ -86,6 +86,17 @@ describe('uploading a capture', () => {
     expect(list.body.items.map((c: { id: number }) => c.id)).toEqual([id]);
     expect(list.body.total).toBe(1);
     expect((await viewer.get(`/api/captures?projectId=${projectId}&status=failed`)).body.items).toEqual([]);
+  });
+
+  it('the demo captures can be added to an empty project, once', async () => {
+    const empty = (await eng.post('/api/projects').send({ name: 'Demo playground' })).body.project.id;
+    const first = await eng.post(`/api/projects/${empty}/demo-captures`);
+    expect(first.status).toBe(202);
+    expect(first.body.added).toBe(8);
+    expect((await eng.post(`/api/projects/${empty}/demo-captures`)).body.added).toBe(0);
+    expect((await viewer.post(`/api/projects/${empty}/demo-captures`)).status).toBe(403);
+    const list = (await eng.get(`/api/captures?projectId=${empty}&tag=inverter`)).body.items as { name: string }[];
+    expect(list.length).toBe(2);
   });
 
   it('without projectId, files it under the uploader’s default project', async () => {
