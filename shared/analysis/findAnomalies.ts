@@ -1,4 +1,5 @@
 import { findClipping } from './clipping';
+import { risingZeroCrossings } from './frequency';
 import type { Samples } from './samples';
 
 export interface AnomalySuggestion {
@@ -137,25 +138,18 @@ export function findAnomalies(x: Samples, sampleRate: number, t0: number, freque
 
   // Frequency deviation: rising zero crossings whose spacing departs from the record's period.
   let sum = 0;
-  for (const v of x) if (!Number.isNaN(v)) sum += v;
-  const mean = sum / x.length;
-  const crossings: number[] = [];
-  const h = 0.1 * nominal;
-  let armed = false;
-  for (let i = 1; i < x.length; i++) {
-    const v = x[i] - mean;
-    if (v < -h) armed = true;
-    else if (armed && v >= h) {
-      armed = false;
-      let j = i;
-      while (j > 0 && x[j - 1] - mean >= 0) j--;
-      crossings.push(j);
-    }
+  let valid = 0;
+  for (const v of x) {
+    if (Number.isNaN(v)) continue;
+    sum += v;
+    valid++;
   }
+  const mean = sum / Math.max(1, valid);
+  const crossings = risingZeroCrossings(x, mean, nominal, min - mean, max - mean).times;
   const off = (k: number) => Math.abs((crossings[k + 1] - crossings[k]) / period - 1) > freqTol;
   for (const [a, b] of runs(crossings.length - 1, off).slice(0, MAX_PER_KIND)) {
     const len = (crossings[b + 1] - crossings[a]) / (b - a + 1);
-    out.push({ kind: 'frequency', startS: t(crossings[a]), endS: t(crossings[b + 1]), severity: 'info', label: 'Frequency deviation', reason: `${b - a + 1} cycle(s) at about ${(sampleRate / len).toPrecision(4)} Hz against ${frequency.toPrecision(5)} Hz for the record (tolerance ±${(freqTol * 100).toFixed(1)} %).` });
+    out.push({ kind: 'frequency', startS: t0 + crossings[a] / sampleRate, endS: t0 + crossings[b + 1] / sampleRate, severity: 'info', label: 'Frequency deviation', reason: `${b - a + 1} cycle(s) at about ${(sampleRate / len).toPrecision(4)} Hz against ${frequency.toPrecision(5)} Hz for the record (tolerance ±${(freqTol * 100).toFixed(1)} %).` });
   }
   return out;
 }

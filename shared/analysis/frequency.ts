@@ -13,8 +13,10 @@ export interface FrequencyEstimate {
 const MAX_PERIOD_SPREAD = 0.05;
 const HYSTERESIS_OF_AC_RMS = 0.1;
 
-interface Crossings {
+export interface Crossings {
+  /** Crossing positions in samples (fractional, by linear interpolation). */
   times: number[];
+  /** Standard deviation of the periods between crossings over their mean (Infinity below 2 crossings). */
   spread: number;
 }
 
@@ -24,7 +26,7 @@ interface Crossings {
  * fire it twice. The thresholds follow each polarity's own excursion, so a narrow pulse train (tiny
  * negative swing, tall positive one) still arms.
  */
-function risingCrossings(x: ArrayLike<number>, mean: number, acRms: number, acMin: number, acMax: number): Crossings {
+export function risingZeroCrossings(x: ArrayLike<number>, mean: number, acRms: number, acMin: number, acMax: number): Crossings {
   const h = HYSTERESIS_OF_AC_RMS * acRms;
   const low = -Math.min(h, 0.5 * -acMin);
   const high = Math.min(h, 0.5 * acMax);
@@ -163,7 +165,7 @@ function candidateFrom(x: ArrayLike<number>, mean: number, method: FrequencyDeta
     if (v > hi) hi = v;
     sq += (v - mean) ** 2;
   }
-  const found = risingCrossings(x, mean, Math.sqrt(sq / x.length), lo - mean, hi - mean);
+  const found = risingZeroCrossings(x, mean, Math.sqrt(sq / x.length), lo - mean, hi - mean);
   if (found.times.length < minCrossings || found.spread > MAX_PERIOD_SPREAD) return null;
   return { ...found, method, period: fittedPeriod(found.times) };
 }

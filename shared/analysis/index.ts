@@ -3,7 +3,7 @@ export { analyzeValidSpan, type ValidSpanResult } from './analyzeValidSpan';
 export { findClipping, type ClippingFinding } from './clipping';
 export { DftPlan, dftBins, dftPlan, dtftAt } from './dft';
 export { ENGINE_VERSION } from './engineVersion';
-export { estimateFrequency, type FrequencyEstimate } from './frequency';
+export { estimateFrequency, risingZeroCrossings, type Crossings, type FrequencyEstimate } from './frequency';
 export { distortion, harmonics, type HarmonicsResult } from './harmonics';
 export { iecHarmonicGroups, mainsSystemOf } from './iec61000_4_7';
 export { meterModel, meterReadings, SINE_FORM_FACTOR, type MeterModelInput } from './meters';
