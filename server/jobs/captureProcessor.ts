@@ -44,20 +44,22 @@ async function retryOnDeadlock<T>(fn: () => Promise<T>, tries = 4): Promise<T> {
 }
 
 /**
- * Takes capture jobs from the shared queue one at a time, runs parsing and analysis in a worker thread,
+ * Takes capture jobs from the shared queue one at a time, runs parsing and analysis in worker threads,
  * and stores the outcome in one transaction: a capture becomes ready with all its samples and analysis,
  * or failed with its error and no samples. A write whose job was meanwhile taken over by another
  * process (after a missed heartbeat) is rolled back, so each capture is processed exactly once.
  */
 export class CaptureProcessor {
   readonly workerId = `${hostname()}:${process.pid}:${randomBytes(3).toString('hex')}`;
-  private readonly worker = new IngestWorkerClient();
+  private readonly worker: IngestWorkerClient;
   private running = false;
   private wake: (() => void) | null = null;
   private loop: Promise<void> | null = null;
   private background = new Set<Promise<unknown>>();
 
-  constructor(private readonly ctx: AppContext) {}
+  constructor(private readonly ctx: AppContext) {
+    this.worker = new IngestWorkerClient(ctx.config.INGEST_WORKERS);
+  }
 
   start(): void {
     if (this.running) return;
@@ -119,10 +121,13 @@ export class CaptureProcessor {
     const beat = setInterval(() => void heartbeat(db, job.id, this.workerId).catch(() => undefined), everyMs);
     let readable: { file: string; done(): Promise<void> } | null = null;
     try {
+      const t0 = performance.now();
       readable = await readableOriginal(this.ctx, capture.originalPath ?? '');
-      const result = await this.worker.run({ file: readable.file, sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint });
+      const result = await this.worker.ingest({ file: readable.file, sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint });
+      const t1 = performance.now();
       if (!this.running) return;
       await this.store(job, result);
+      if (process.env.CRESTLINE_TRACE) console.log(`capture ${capture.id}: read and analysed in ${(t1 - t0).toFixed(0)} ms, stored in ${(performance.now() - t1).toFixed(0)} ms`);
       const task = compressOriginal(this.ctx, capture.id).catch((err) => console.error('compressing original:', err));
       this.background.add(task);
       void task.finally(() => this.background.delete(task));

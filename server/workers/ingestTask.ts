@@ -1,5 +1,5 @@
 import { closeSync, openSync, readSync } from 'node:fs';
-import { analyzeValidSpan, ENGINE_VERSION, findAnomalies, type AnomalySuggestion } from '../../shared/analysis';
+import { analyzeValidSpan, findAnomalies, type AnomalySuggestion } from '../../shared/analysis';
 import { CsvError } from '../../shared/csv';
 import { readCaptureBytes } from '../../shared/csv/readCaptureBytes';
 import type { ChannelAnalysis } from '../../shared/schemas/analysis';
@@ -48,28 +48,33 @@ function* fileChunks(path: string): Generator<Uint8Array> {
   }
 }
 
-/** Reads, analyses and packs one capture file. CPU-bound: runs in a worker thread. */
-export function ingestFile(req: IngestRequest): IngestResult {
+export interface ParsedChannel {
+  name: string;
+  unit: string;
+  invalidCount: number;
+  firstInvalidLine: number | null;
+  samples: Float64Array;
+}
+
+export interface ParsedFile {
+  sampleRate: number;
+  sampleCount: number;
+  t0: number;
+  detected: DetectedFormat;
+  metadata: { key: string; value: string; line: number }[];
+  channels: ParsedChannel[];
+}
+
+/** Reads one capture file into channels of samples. CPU-bound: runs in a worker thread. */
+export function parseFile(req: IngestRequest): ParsedFile {
+  const t0 = performance.now();
   const data = readCaptureBytes(fileChunks(req.file), { sampleRateHint: req.sampleRateHint, totalBytes: req.sizeBytes });
+  if (process.env.CRESTLINE_TRACE) console.log(`  reading ${(performance.now() - t0).toFixed(0)} ms`);
   const layout = data.layout;
-  const channels = data.channels.map((c, i): IngestedChannel => {
-    const result = analyzeValidSpan(c.samples, data.sampleRate, { t0: data.t0 });
-    if (!result.ok) throw new CsvError(`Channel ${c.name}: ${result.reason}`, c.firstInvalidLine ?? undefined);
-    return {
-      name: c.name || `CH${i + 1}`,
-      unit: c.unit,
-      invalidCount: c.invalidCount,
-      analysis: result.analysis,
-      suggestions: findAnomalies(c.samples, data.sampleRate, data.t0, result.analysis.frequency),
-      chunks: float32Chunks(c.samples),
-      overviews: overviewPyramid(c.samples).map((l) => ({ bucketSize: l.bucketSize, data: Buffer.from(l.minMax.buffer) })),
-    };
-  });
   return {
     sampleRate: data.sampleRate,
     sampleCount: data.rows,
     t0: data.t0,
-    engineVersion: ENGINE_VERSION,
     detected: {
       encoding: data.encoding,
       bom: data.bom,
@@ -85,6 +90,31 @@ export function ingestFile(req: IngestRequest): IngestResult {
       rows: data.rows,
     },
     metadata: layout.preamble,
-    channels,
+    channels: data.channels.map((c, i) => ({ name: c.name || `CH${i + 1}`, unit: c.unit, invalidCount: c.invalidCount, firstInvalidLine: c.firstInvalidLine, samples: c.samples })),
   };
+}
+
+export interface AnalyseRequest {
+  channel: ParsedChannel;
+  sampleRate: number;
+  t0: number;
+}
+
+/** Analyses one channel, looks for anomalies and packs its samples for storage. Runs in a worker thread. */
+export function analyseChannel(req: AnalyseRequest): IngestedChannel {
+  const t0 = performance.now();
+  const c = req.channel;
+  const result = analyzeValidSpan(c.samples, req.sampleRate, { t0: req.t0 });
+  if (!result.ok) throw new CsvError(`Channel ${c.name}: ${result.reason}`, c.firstInvalidLine ?? undefined);
+  const out = {
+    name: c.name,
+    unit: c.unit,
+    invalidCount: c.invalidCount,
+    analysis: result.analysis,
+    suggestions: findAnomalies(c.samples, req.sampleRate, req.t0, result.analysis.frequency),
+    chunks: float32Chunks(c.samples),
+    overviews: overviewPyramid(c.samples).map((l) => ({ bucketSize: l.bucketSize, data: Buffer.from(l.minMax.buffer) })),
+  };
+  if (process.env.CRESTLINE_TRACE) console.log(`  channel ${c.name}: analysis and packing ${(performance.now() - t0).toFixed(0)} ms`);
+  return out;
 }

@@ -1,15 +1,25 @@
 import { parentPort } from 'node:worker_threads';
 import { CsvError } from '../../shared/csv';
-import { ingestFile, type IngestRequest } from './ingestTask';
+import { analyseChannel, parseFile, type AnalyseRequest, type IngestRequest } from './ingestTask';
 
-export type IngestReply =
-  | { id: number; ok: true; result: ReturnType<typeof ingestFile> }
-  | { id: number; ok: false; error: { code: string; message: string; line?: number } };
+export type IngestTask = { kind: 'parse'; request: IngestRequest } | { kind: 'analyse'; request: AnalyseRequest };
 
-parentPort!.on('message', ({ id, request }: { id: number; request: IngestRequest }) => {
+export type IngestReply = { id: number; ok: true; result: unknown } | { id: number; ok: false; error: { code: string; message: string; line?: number } };
+
+parentPort!.on('message', ({ id, task }: { id: number; task: IngestTask }) => {
   try {
-    const result = ingestFile(request);
-    const transfer = result.channels.flatMap((c) => [...c.chunks.map((b) => b.buffer), ...c.overviews.map((o) => o.data.buffer)]);
+    let result: unknown;
+    let transfer: ArrayBufferLike[];
+    if (task.kind === 'parse') {
+      const parsed = parseFile(task.request);
+      result = parsed;
+      transfer = parsed.channels.map((c) => c.samples.buffer);
+    } else {
+      const channel = analyseChannel(task.request);
+      result = channel;
+      transfer = [...channel.chunks.map((b) => b.buffer), ...channel.overviews.map((o) => o.data.buffer)];
+    }
+    // Samples and packed chunks move to the main thread rather than being copied.
     parentPort!.postMessage({ id, ok: true, result } satisfies IngestReply, [...new Set(transfer)] as ArrayBuffer[]);
   } catch (e) {
     const error =
