@@ -12,3 +12,4 @@ export { timeDomainFigures, type TimeDomainFigures } from './timeDomainFigures';
 export { wholeCycleWindow } from './wholeCycleWindow';
 export { meterExplanation } from './meterExplanation';
 export { findAnomalies, type AnomalySuggestion, type AnomalyOptions } from './findAnomalies';
+export { powerQuantities, type PowerQuantities } from './powerQuantities';
