@@ -14,6 +14,7 @@ import { analyzeChannel, dftPlan, harmonics, timeDomainFigures } from '../shared
 import { readCaptureBytes } from '../shared/csv/readCaptureBytes';
 
 const quick = process.argv.includes('--quick');
+const part = /--part=(\w+)/.exec(process.argv.join(' '))?.[1] ?? 'all';
 const work = mkdtempSync(path.join(tmpdir(), 'crestline-bench-'));
 const line = (label: string, value: string, reference = '') => console.log(`${label.padEnd(52)} ${value.padStart(16)}   ${reference}`);
 const best = (runs: number, fn: () => void) => {
@@ -59,6 +60,7 @@ async function writeCsv(file: string, rows: number): Promise<number> {
   return bytes;
 }
 
+if (part !== 'ingest') {
 console.log(`Crestline bench (${new Date().toISOString()}), Node ${process.version}\n`);
 console.log(`${'measure'.padEnd(52)} ${'Crestline'.padStart(16)}   reference`);
 
@@ -75,9 +77,9 @@ line('harmonics 1..50, 1 M samples', `${harmMs.toFixed(0)} ms`, `full Bluestein 
 line('whole channel analysis, 1 M samples', `${best(3, () => analyzeChannel(y, 1e6)).toFixed(0)} ms`, '(figures, frequency, harmonics, IEC groups, warnings)');
 
 // 2. CSV parsing
-const csv1 = path.join(work, 'one-million.csv');
-const size1 = await writeCsv(csv1, 1_000_000);
-const bytes1 = new Uint8Array(readFileSync(csv1));
+const csvFile = path.join(work, 'one-million-reading.csv');
+const size1 = await writeCsv(csvFile, 1_000_000);
+const bytes1 = new Uint8Array(readFileSync(csvFile));
 const chunks = Array.from({ length: Math.ceil(bytes1.length / (4 << 20)) }, (_, i) => bytes1.subarray(i * (4 << 20), (i + 1) * (4 << 20)));
 const parseMs = best(3, () => readCaptureBytes(chunks, { totalBytes: bytes1.length }));
 const text1 = Buffer.from(bytes1).toString('utf8');
@@ -102,6 +104,13 @@ const bareMs = best(3, () => {
 });
 const mbps = (ms: number) => (size1 / 1e6 / (ms / 1000)).toFixed(0);
 line(`CSV reading, ${(size1 / 1e6).toFixed(0)} MB, 1 M rows`, `${mbps(parseMs)} MB/s`, `csv-parse cast:true ${mbps(csvParseMs)} MB/s; bare indexOf+Number loop ${mbps(bareMs)} MB/s; target ≥ 100 MB/s`);
+}
+if (part === 'engine') {
+  rmSync(work, { recursive: true, force: true });
+  process.exit(0);
+}
+const csv1 = path.join(work, 'one-million.csv');
+const size1 = await writeCsv(csv1, 1_000_000);
 
 // 3. Upload to ready against numpy
 const url = process.env.BENCH_DATABASE_URL;
