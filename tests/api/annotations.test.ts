@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RunningServer } from '../../server/server';
 import { sineCsv, uploadText, waitSettled } from '../helpers/captures';
-import { ADMIN, resetDatabase, signedIn, startTestServer } from '../helpers/testServer';
+import { resetDatabase, signedIn, startTestServer, userAgent } from '../helpers/testServer';
 
 let app: RunningServer;
 let eng: Awaited<ReturnType<typeof signedIn>>;
@@ -11,13 +11,9 @@ let captureId: number;
 beforeAll(async () => {
   app = await startTestServer({ RUN_WORKER: '1' });
   await resetDatabase(app);
-  const admin = await signedIn(app, ADMIN.email, ADMIN.password);
-  await admin.post('/api/users').send({ email: 'a@ann.example', name: 'Author', role: 'engineer', password: 'engineer-pass-1' });
-  await admin.post('/api/users').send({ email: 'b@ann.example', name: 'Other', role: 'engineer', password: 'engineer-pass-2' });
-  await admin.post('/api/users').send({ email: 'v@ann.example', name: 'Viewer', role: 'viewer', password: 'viewer-pass-1' });
-  eng = await signedIn(app, 'a@ann.example', 'engineer-pass-1');
-  other = await signedIn(app, 'b@ann.example', 'engineer-pass-2');
-  viewer = await signedIn(app, 'v@ann.example', 'viewer-pass-1');
+  eng = await userAgent(app, { email: 'a@ann.example', name: 'Author', role: 'engineer' });
+  other = await userAgent(app, { email: 'b@ann.example', name: 'Other', role: 'engineer' });
+  viewer = await userAgent(app, { email: 'v@ann.example', name: 'Viewer', role: 'viewer' });
   captureId = (await uploadText(eng, 'a.csv', sineCsv(325, 50, 10000, 0.2))).body.id;
   await waitSettled(eng, captureId);
 });

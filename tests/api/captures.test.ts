@@ -4,7 +4,7 @@ import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RunningServer } from '../../server/server';
 import { sineCsv, uploadText, waitSettled } from '../helpers/captures';
-import { ADMIN, resetDatabase, signedIn, startTestServer } from '../helpers/testServer';
+import { resetDatabase, signedIn, startTestServer, userAgent } from '../helpers/testServer';
 
 let app: RunningServer;
 let eng: Awaited<ReturnType<typeof signedIn>>;
@@ -20,13 +20,9 @@ const storedSamples = async (captureId: number) => {
 beforeAll(async () => {
   app = await startTestServer({ RUN_WORKER: '1' });
   await resetDatabase(app);
-  const admin = await signedIn(app, ADMIN.email, ADMIN.password);
-  await admin.post('/api/users').send({ email: 'eng@cap.example', name: 'Eng', role: 'engineer', password: 'engineer-pass-1' });
-  await admin.post('/api/users').send({ email: 'eng2@cap.example', name: 'Other', role: 'engineer', password: 'engineer-pass-2' });
-  await admin.post('/api/users').send({ email: 'view@cap.example', name: 'View', role: 'viewer', password: 'viewer-pass-1' });
-  eng = await signedIn(app, 'eng@cap.example', 'engineer-pass-1');
-  other = await signedIn(app, 'eng2@cap.example', 'engineer-pass-2');
-  viewer = await signedIn(app, 'view@cap.example', 'viewer-pass-1');
+  eng = await userAgent(app, { email: 'eng@cap.example', name: 'Eng', role: 'engineer' });
+  other = await userAgent(app, { email: 'eng2@cap.example', name: 'Other', role: 'engineer' });
+  viewer = await userAgent(app, { email: 'view@cap.example', name: 'View', role: 'viewer' });
   projectId = (await eng.post('/api/projects').send({ name: 'Ingest tests' })).body.project.id;
 });
 afterAll(() => app.stop());

@@ -5,7 +5,7 @@ import { shares } from '../../server/db/schema';
 import type { RunningServer } from '../../server/server';
 import { sineCsv, uploadText, waitSettled } from '../helpers/captures';
 import { lastMailTo, linkIn } from '../helpers/mailbox';
-import { ADMIN, resetDatabase, signedIn, startTestServer } from '../helpers/testServer';
+import { resetDatabase, signedIn, startTestServer, userAgent } from '../helpers/testServer';
 
 let app: RunningServer;
 let eng: Awaited<ReturnType<typeof signedIn>>;
@@ -17,11 +17,8 @@ const anon = () => supertest(app.server);
 beforeAll(async () => {
   app = await startTestServer({ RUN_WORKER: '1' });
   await resetDatabase(app);
-  const admin = await signedIn(app, ADMIN.email, ADMIN.password);
-  await admin.post('/api/users').send({ email: 'e@share.example', name: 'Sharer', role: 'engineer', password: 'engineer-pass-1' });
-  await admin.post('/api/users').send({ email: 'v@share.example', name: 'Viewer', role: 'viewer', password: 'viewer-pass-1' });
-  eng = await signedIn(app, 'e@share.example', 'engineer-pass-1');
-  viewer = await signedIn(app, 'v@share.example', 'viewer-pass-1');
+  eng = await userAgent(app, { email: 'e@share.example', name: 'Sharer', role: 'engineer' });
+  viewer = await userAgent(app, { email: 'v@share.example', name: 'Viewer', role: 'viewer' });
   captureId = (await uploadText(eng, 'shared.csv', sineCsv(325, 50, 10000, 0.2))).body.id;
   otherCaptureId = (await uploadText(eng, 'private.csv', sineCsv(100, 50, 10000, 0.2))).body.id;
   await waitSettled(eng, captureId);

@@ -50,3 +50,12 @@ export async function signedIn(running: RunningServer, email: string, password: 
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return agent;
 }
+
+/** Creates a user through the admin API and returns an agent signed in as them. */
+export async function userAgent(running: RunningServer, user: { email: string; name: string; role: 'admin' | 'engineer' | 'viewer' }) {
+  const admin = await signedIn(running, ADMIN.email, ADMIN.password);
+  const password = `password-of-${user.email}`;
+  const res = await admin.post('/api/users').send({ ...user, password });
+  if (res.status !== 201) throw new Error(`creating ${user.email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return signedIn(running, user.email, password);
+}
