@@ -23,6 +23,7 @@ const clientDir = path.resolve('dist/client');
 export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void } = {}): Express {
   const app = express();
   app.disable('x-powered-by');
+  if (ctx.config.TRUST_PROXY) app.set('trust proxy', /^\d+$/.test(ctx.config.TRUST_PROXY) ? Number(ctx.config.TRUST_PROXY) : ctx.config.TRUST_PROXY);
   app.use(
     helmet({
       contentSecurityPolicy: {

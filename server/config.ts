@@ -13,6 +13,8 @@ export const ConfigSchema = z.object({
   /** Signs session cookies; generated once into DATA_DIR when absent. */
   SESSION_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
   SESSION_DAYS: z.coerce.number().positive().default(7),
+  /** Behind a TLS-terminating reverse proxy: Express's `trust proxy` (e.g. 1 or loopback), so cookies get Secure. */
+  TRUST_PROXY: z.string().optional(),
   ADMIN_EMAIL: z.string().email().optional(),
   ADMIN_PASSWORD: z.string().min(8, 'must be at least 8 characters').optional(),
   ADMIN_NAME: z.string().default('Administrator'),

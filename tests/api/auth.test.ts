@@ -39,6 +39,17 @@ describe('POST /api/auth/login', () => {
     expect(res.headers['set-cookie'][0]).toMatch(/Secure/);
   });
 
+  it('behind a trusted TLS proxy (TRUST_PROXY), the cookie is Secure too', async () => {
+    const proxied = await startTestServer({ TRUST_PROXY: '1' });
+    try {
+      const res = await supertest(proxied.server).post('/api/auth/login').set('X-Forwarded-Proto', 'https').send({ email: ADMIN.email, password: ADMIN.password });
+      expect(res.status).toBe(200);
+      expect(res.headers['set-cookie'][0]).toMatch(/Secure/);
+    } finally {
+      await proxied.stop();
+    }
+  });
+
   it('with a wrong password or an unknown e-mail: the same 401, which does not tell them apart', async () => {
     const wrong = await supertest(app.server).post('/api/auth/login').send({ email: ADMIN.email, password: 'not-the-password' });
     const unknown = await supertest(app.server).post('/api/auth/login').send({ email: 'nobody@test.example', password: 'not-the-password' });

@@ -81,6 +81,11 @@ describe('the workspace', () => {
     await dragAcross(page, 0.1, 0.3);
     await request;
     await screenshot(page, 'capture-zoomed');
+    // The plot answers the keyboard too: focus it, pan right with an arrow key.
+    const panned = page.waitForRequest((r) => /\/samples\?/.test(r.url()));
+    await page.locator('[data-test=waveform]').focus();
+    await page.keyboard.press('ArrowRight');
+    await panned;
     await page.locator('[data-test=zoom-reset]').click();
   });
 
