@@ -61,17 +61,16 @@ export function overviewPyramid(samples: Float64Array, stopAtBuckets = 2000): Ov
     const nextBuckets = Math.ceil(buckets / OVERVIEW_FACTOR);
     const next = new Float32Array(nextBuckets * 2);
     for (let b = 0; b < nextBuckets; b++) {
-      let lo = NaN;
-      let hi = NaN;
+      let lo = Infinity;
+      let hi = -Infinity;
       const end = Math.min(buckets, (b + 1) * OVERVIEW_FACTOR);
       for (let j = b * OVERVIEW_FACTOR; j < end; j++) {
-        const l = minMax[2 * j];
-        const h = minMax[2 * j + 1];
-        if (!(l >= lo)) lo = Number.isNaN(lo) || l < lo ? l : lo;
-        if (!(h <= hi)) hi = Number.isNaN(hi) || h > hi ? h : hi;
+        // Comparisons with NaN are false, so buckets of invalid samples only are skipped.
+        if (minMax[2 * j] < lo) lo = minMax[2 * j];
+        if (minMax[2 * j + 1] > hi) hi = minMax[2 * j + 1];
       }
-      next[2 * b] = lo;
-      next[2 * b + 1] = hi;
+      next[2 * b] = lo === Infinity ? NaN : lo;
+      next[2 * b + 1] = hi === -Infinity ? NaN : hi;
     }
     bucketSize *= OVERVIEW_FACTOR;
     buckets = nextBuckets;
