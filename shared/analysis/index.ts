@@ -6,7 +6,7 @@ export { ENGINE_VERSION } from './engineVersion';
 export { estimateFrequency, risingZeroCrossings, type Crossings, type FrequencyEstimate } from './frequency';
 export { distortion, harmonics, type HarmonicsResult } from './harmonics';
 export { iecHarmonicGroups, mainsSystemOf } from './iec61000_4_7';
-export { meterModel, meterReadings, SINE_FORM_FACTOR, type MeterModelInput } from './meters';
+export { meterInputOf, meterModel, meterReadings, SINE_FORM_FACTOR, type MeterModelInput } from './meters';
 export type { Samples } from './samples';
 export { timeDomainFigures, type TimeDomainFigures } from './timeDomainFigures';
 export { wholeCycleWindow } from './wholeCycleWindow';

@@ -155,3 +155,18 @@ export function meterModel(profile: MeterProfile, input: MeterModelInput): Meter
 function fmt(v: number): string {
   return Number(v.toPrecision(4)).toString();
 }
+
+/** The meter model's input from a stored analysis (its window's figures, frequency and harmonics). */
+export function meterInputOf(a: {
+  mean: number; rms: number; acRms: number; rectifiedAverage: number; acRectifiedAverage: number; peak: number; min: number; max: number;
+  peakToPeak: number; crestFactor: number | null; formFactor: number | null; frequency: number | null; harmonics: Harmonic[];
+}): MeterModelInput {
+  return {
+    figures: {
+      mean: a.mean, rms: a.rms, acRms: a.acRms, rectifiedAverage: a.rectifiedAverage, acRectifiedAverage: a.acRectifiedAverage, peak: a.peak,
+      min: a.min, max: a.max, peakToPeak: a.peakToPeak, acPeak: Math.max(a.max - a.mean, a.mean - a.min), crestFactor: a.crestFactor, formFactor: a.formFactor,
+    },
+    frequency: a.frequency,
+    harmonics: a.harmonics,
+  };
+}

@@ -24,6 +24,7 @@ const engineer = { email: 'eng@ws.example', password: 'engineer-pass-1' };
 /** Drags across the plot area from one fraction of its width to another. */
 async function dragAcross(p: Page, from: number, to: number) {
   const over = p.locator('[data-test=waveform] .u-over').first();
+  await over.scrollIntoViewIfNeeded();
   const box = (await over.boundingBox())!;
   await p.mouse.move(box.x + box.width * from, box.y + box.height / 2);
   await p.mouse.down();
@@ -69,6 +70,12 @@ describe('the workspace', () => {
     const avg = await page.locator('[data-test=meter-averageResponding]').textContent();
     expect(avg).toContain('+11.07 %');
     expect(await page.locator('[data-test=meter-explanation]').textContent()).toMatch(/form factor/);
+    // "Your meter": a true RMS meter with 1 kHz bandwidth reads a 50 Hz square wave low, because its
+    // harmonics above the band are attenuated (first-order low-pass; circuit theory, from memory).
+    const predicted = await page.locator('[data-test=meter-model-result] .reading').textContent();
+    const volts = Number(predicted!.replace(/[^\d.]/g, ''));
+    expect(volts).toBeLessThan(230);
+    expect(volts).toBeGreaterThan(200);
     await screenshot(page, 'capture-meters');
     await page.getByRole('tab', { name: 'Harmonics' }).click();
     await page.locator('[data-test=harmonics-table]').waitFor();
