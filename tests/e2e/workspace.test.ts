@@ -104,6 +104,12 @@ describe('the workspace', () => {
     expect(spanRms).toMatch(/^230\.0 V$/);
     await page.locator('[data-test=span-banner]').waitFor();
     await screenshot(page, 'capture-span');
+    // The same by typing the times: two whole cycles of 50 Hz, so no banner.
+    await page.locator('#span-from').fill('0.02');
+    await page.locator('#span-to').fill('0.06');
+    await page.locator('[data-test=span-measure-typed]').click();
+    await expect.poll(() => page.locator('[data-test=span-figures]').textContent()).toMatch(/0\.0200000 s to 0\.0600000 s/);
+    expect(await page.locator('[data-test=span-banner]').count()).toBe(0);
   });
 
   it('marks an anomaly, and it is still there after a reload', async () => {
