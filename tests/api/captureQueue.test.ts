@@ -39,6 +39,7 @@ describe('the capture queue', () => {
       expect(rows[0], String(rows[0].lastError)).toMatchObject({ status: 'done', attempts: 1 });
       const analysis = (await eng.get(`/api/captures/${id}/analysis`)).body;
       expect(analysis.channels).toHaveLength(1);
+      // a sine's RMS is its peak over √2 (standard calculus)
       expect(analysis.channels[0].acRms).toBeCloseTo((1 + i) / Math.SQRT2, 6);
     }
     const owners = new Set((await app.ctx.db.select({ by: jobs.lockedBy }).from(jobs)).map((r) => r.by));

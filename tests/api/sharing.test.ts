@@ -56,6 +56,7 @@ describe('read-only share links', () => {
     expect(res.body.kind).toBe('capture');
     expect(res.body.sharedBy).toBe('Sharer');
     expect(res.body.captures[0].capture.id).toBe(captureId);
+    // a sine's RMS is its peak over √2 (standard calculus)
     expect(res.body.captures[0].analysis.channels[0].rms).toBeCloseTo(325 / Math.SQRT2, 3);
     const samples = await anon().get(`/api/shared/${token}/captures/${captureId}/samples?channel=0&points=100`);
     expect(samples.status).toBe(200);

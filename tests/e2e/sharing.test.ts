@@ -46,6 +46,7 @@ describe('sharing a capture', () => {
     const guestPage = await guest.newPage();
     await guestPage.goto(link);
     await guestPage.locator('[data-test=figures-table]').first().waitFor();
+    // the ±230 V square-wave fixture: true RMS = A for a 50 % square wave (standard calculus)
     expect(await guestPage.locator('[data-test=figure-rms] td').first().textContent()).toMatch(/^230\.0 V$/);
     expect(await guestPage.locator('[data-test=shared-by]').textContent()).toMatch(/Shared by Sol Sharer/);
     await guestPage.locator('[data-test=waveform] canvas').first().waitFor();
