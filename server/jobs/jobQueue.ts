@@ -43,6 +43,7 @@ export async function heartbeat(db: Db, jobId: number, workerId: string): Promis
 /** Where a job still belongs to this worker: the condition every finishing write carries. */
 export const ownedBy = (jobId: number, workerId: string) => and(eq(jobs.id, jobId), eq(jobs.lockedBy, workerId), eq(jobs.status, 'running'));
 
-export async function enqueue(db: Db, captureId: number, kind: 'ingest' | 'reanalyse'): Promise<void> {
+/** Queues a capture for processing; pass the transaction that creates or resets the capture. */
+export async function enqueue(db: Pick<Db, 'insert'>, captureId: number, kind: 'ingest' | 'reanalyse'): Promise<void> {
   await db.insert(jobs).values({ captureId, kind });
 }

@@ -6,7 +6,7 @@ import type { User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
 import { channelAnalyses, findCaptureBySha, findCaptureDetail, findCaptureRow, listCaptures } from '../db/captureRepository';
 import { findProject } from '../db/projectRepository';
-import { captures, jobs } from '../db/schema';
+import { captures } from '../db/schema';
 import { AppError, forbidden, notFound } from '../errors';
 import { enqueue } from '../jobs/jobQueue';
 import { keepOriginal, removeOriginal, sha256OfFile } from './originalFiles';
@@ -45,7 +45,7 @@ export async function acceptUpload(
         .$returningId();
       const relative = await keepOriginal(ctx, file.path, id);
       await tx.update(captures).set({ originalPath: relative }).where(eq(captures.id, id));
-      await tx.insert(jobs).values({ captureId: id, kind: 'ingest' });
+      await enqueue(tx, id, 'ingest');
       return id;
     });
     return { id, status: 'queued', duplicate: false };
@@ -100,7 +100,7 @@ export async function provideSampleRate(ctx: AppContext, user: User, id: number,
   if (row.status !== 'failed') throw new AppError(409, 'not_failed', 'Only a failed capture can be given a sample rate');
   await ctx.db.transaction(async (tx) => {
     await tx.update(captures).set({ sampleRateHint: sampleRate, status: 'queued', errorCode: null, errorMessage: null, errorLine: null }).where(eq(captures.id, id));
-    await tx.insert(jobs).values({ captureId: id, kind: 'ingest' });
+    await enqueue(tx, id, 'ingest');
   });
   return captureDetail(ctx, id);
 }

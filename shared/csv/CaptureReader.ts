@@ -290,10 +290,3 @@ export class CaptureReader {
     };
   }
 }
-
-/** Reads a whole capture held in one string (small files, tests, the browser). */
-export function readCaptureText(text: string, options: { sampleRateHint?: number | null } = {}): CaptureData {
-  const reader = new CaptureReader({ ...options, expectedChars: text.length });
-  reader.push(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
-  return reader.finish();
-}

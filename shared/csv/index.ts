@@ -1,4 +1,4 @@
-export { CaptureReader, readCaptureText, type CaptureData, type ChannelData } from './CaptureReader';
+export { CaptureReader, type CaptureData, type ChannelData } from './CaptureReader';
 export { parseColumnHeader, timeUnitScale } from './columnHeader';
 export { CsvError } from './CsvError';
 export { detectEncoding, type EncodingGuess } from './detectEncoding';
