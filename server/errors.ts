@@ -21,6 +21,17 @@ function zodMessage(err: ZodError): string {
   return err.issues.map((i) => (i.path.length ? `${i.path.join('.')}: ${i.message}` : i.message)).join('; ');
 }
 
+/** mysql2's codes for a database that cannot be reached or dropped the connection. */
+const DATABASE_AWAY = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'PROTOCOL_CONNECTION_LOST', 'ER_CON_COUNT_ERROR', 'ER_SERVER_SHUTDOWN', 'POOL_CLOSED', 'PROTOCOL_SEQUENCE_TIMEOUT']);
+
+/** Whether an error (or the driver error drizzle wraps in `cause`) means the database is unavailable. */
+export function isDatabaseAway(err: unknown): boolean {
+  for (let e = err as { code?: string; cause?: unknown } | undefined, depth = 0; e && depth < 4; e = e.cause as typeof e, depth++) {
+    if (typeof e.code === 'string' && DATABASE_AWAY.has(e.code)) return true;
+  }
+  return false;
+}
+
 /** Turns anything thrown into the one error body; stack traces stay in the server log. */
 export const errorHandler: ErrorRequestHandler = (err, _req, res, next) => {
   if (res.headersSent) return next(err);
@@ -38,6 +49,12 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, next) => {
   } else if (err?.type === 'entity.too.large') {
     status = 413;
     body = { error: { code: 'too_large', message: 'The request body is too large' } };
+  } else if (isDatabaseAway(err)) {
+    // Nothing was changed; the client may simply try again.
+    status = 503;
+    body = { error: { code: 'unavailable', message: 'The database cannot be reached right now; try again in a moment' } };
+    res.set('Retry-After', '5');
+    console.error('database unavailable:', (err as Error).message);
   } else {
     console.error(err);
   }

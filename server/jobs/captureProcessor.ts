@@ -1,200 +1,161 @@
 import { randomBytes } from 'node:crypto';
 import { hostname } from 'node:os';
-import { and, eq, sql } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import type { AppContext } from '../context';
-import { annotations, captures, channels, jobs, overviews, sampleChunks } from '../db/schema';
+import { findCaptureRow } from '../db/captureRepository';
+import { isDatabaseAway } from '../errors';
+import { captures, jobs } from '../db/schema';
 import { compressOriginal, readableOriginal } from '../services/originalFiles';
-import type { IngestResult } from '../workers/ingestTask';
 import { IngestFailure, IngestWorkerClient } from '../workers/IngestWorkerClient';
-import { claimJob, heartbeat, MAX_ATTEMPTS, ownedBy, type ClaimedJob } from './jobQueue';
+import { maxSamples, taskBudgetMs } from './ingestLimits';
+import { claimJob, heartbeat, MAX_ATTEMPTS, ownedBy, releaseJob, type ClaimedJob } from './jobQueue';
+import { unexpectedFailure } from './processingFailure';
+import { storeFailure, storeReady } from './storeOutcome';
 
 const POLL_MS = 500;
-
-const asBuffer = (u: Uint8Array) => Buffer.from(u.buffer, u.byteOffset, u.byteLength);
-
-const describe = (err: unknown) => {
-  const e = err as Error & { cause?: Error };
-  return e.cause ? `${e.message}: ${e.cause.message}` : String(e.message ?? err);
-};
-
-type Tx = Parameters<Parameters<AppContext['db']['transaction']>[0]>[0];
+/** Longest pause between polls while the database cannot be reached. */
+const MAX_BACKOFF_MS = 10_000;
 
 /**
- * Removes what an earlier run stored for a capture (a retry, a re-analysis). Only when there is
- * something: a DELETE over an empty range takes gap locks that deadlock with other captures' inserts.
- */
-async function clearStoredSamples(tx: Tx, captureId: number): Promise<void> {
-  const [existing] = await tx.select({ n: sql<number>`COUNT(*)` }).from(channels).where(eq(channels.captureId, captureId));
-  if (Number(existing.n) === 0) return;
-  for (const table of [sampleChunks, overviews, channels]) await tx.delete(table).where(eq(table.captureId, captureId));
-  // Suggestions not yet acted on are replaced by the new run's; accepted or dismissed ones stay.
-  await tx.delete(annotations).where(and(eq(annotations.captureId, captureId), eq(annotations.source, 'finder'), eq(annotations.state, 'suggested')));
-}
-
-/** InnoDB may pick a transaction as a deadlock victim; it is then safe to run it again. */
-async function retryOnDeadlock<T>(fn: () => Promise<T>, tries = 4): Promise<T> {
-  for (let i = 1; ; i++) {
-    try {
-      return await fn();
-    } catch (err) {
-      const code = (err as { cause?: { errno?: number } }).cause?.errno ?? (err as { errno?: number }).errno;
-      if (code !== 1213 || i >= tries) throw err;
-    }
-  }
-}
-
-/**
- * Takes capture jobs from the shared queue one at a time, runs parsing and analysis in worker threads,
- * and stores the outcome in one transaction: a capture becomes ready with all its samples and analysis,
- * or failed with its error and no samples. A write whose job was meanwhile taken over by another
- * process (after a missed heartbeat) is rolled back, so each capture is processed exactly once.
+ * Takes capture jobs from the shared queue, INGEST_CONCURRENCY at a time, each in worker threads of its
+ * own slot, and stores the outcome in one transaction: a capture becomes ready with all its samples and
+ * analysis, or failed with a short message and no samples. A file that runs past its time budget has
+ * its worker stopped and fails alone, while the other slot keeps serving the team's uploads. A write
+ * whose job was meanwhile taken over by another process (after a missed heartbeat) is rolled back, so
+ * each capture is processed exactly once.
  */
 export class CaptureProcessor {
   readonly workerId = `${hostname()}:${process.pid}:${randomBytes(3).toString('hex')}`;
-  private readonly worker: IngestWorkerClient;
+  /** One worker client per slot: stopping a stuck file's worker never touches another file's task. */
+  readonly slots: IngestWorkerClient[];
   private running = false;
-  private wake: (() => void) | null = null;
-  private loop: Promise<void> | null = null;
+  /** On a deliberate stop, interrupted jobs go back to the queue; an abandon leaves them as a crash would. */
+  private releaseOnStop = true;
+  private wakers = new Set<() => void>();
+  private loops: Promise<void>[] = [];
   private background = new Set<Promise<unknown>>();
 
   constructor(private readonly ctx: AppContext) {
-    this.worker = new IngestWorkerClient(ctx.config.INGEST_WORKERS);
+    this.slots = Array.from({ length: ctx.config.INGEST_CONCURRENCY }, () => new IngestWorkerClient(ctx.config.INGEST_WORKERS));
   }
 
   start(): void {
     if (this.running) return;
     this.running = true;
-    this.loop = this.run();
+    this.releaseOnStop = true;
+    for (const slot of this.slots) slot.warm();
+    this.loops = this.slots.map((slot) => this.run(slot));
   }
 
   /** Looks at the queue now rather than at the next poll (after an upload). */
   nudge(): void {
-    this.wake?.();
+    for (const wake of [...this.wakers]) wake();
   }
 
-  /** Stops after the current job and waits for background work. */
+  /**
+   * Stops promptly: running tasks are interrupted and their jobs given back to the queue uncounted,
+   * so a shutdown never waits for a large file. Waits for background work (compression).
+   */
   async stop(): Promise<void> {
     this.running = false;
     this.nudge();
-    await this.loop;
+    await Promise.all(this.slots.map((s) => s.close()));
+    await Promise.all(this.loops);
     await Promise.allSettled([...this.background]);
-    await this.worker.close();
   }
 
-  /** Stops at once, leaving a running job unfinished, as a killed process would. */
+  /** Stops at once, leaving a running job unfinished and owned, as a killed process would. */
   async abandon(): Promise<void> {
     this.running = false;
+    this.releaseOnStop = false;
     this.nudge();
-    await this.worker.close();
-    await this.loop?.catch(() => undefined);
+    await Promise.all(this.slots.map((s) => s.close()));
+    await Promise.all(this.loops.map((l) => l.catch(() => undefined)));
   }
 
-  private async run(): Promise<void> {
+  private async run(slot: IngestWorkerClient): Promise<void> {
+    let pauseMs = POLL_MS;
     while (this.running) {
       let job: ClaimedJob | null = null;
       try {
         job = await claimJob(this.ctx.db, this.workerId, this.ctx.config.JOB_STALE_SECONDS);
-        if (job) await this.process(job);
+        if (job) await this.process(job, slot);
+        pauseMs = POLL_MS;
       } catch (err) {
-        if (this.running) console.error('capture processing:', err);
+        // Most often the database is away: ask less often until it answers again.
+        pauseMs = Math.min(pauseMs * 2, MAX_BACKOFF_MS);
+        if (this.running) {
+          if (isDatabaseAway(err)) console.error(`capture processing: the database cannot be reached; next try in ${pauseMs / 1000} s`);
+          else console.error('capture processing:', err);
+        }
+        job = null;
       }
-      if (!job && this.running) {
-        await new Promise<void>((resolve) => {
-          const t = setTimeout(resolve, POLL_MS);
-          this.wake = () => {
-            clearTimeout(t);
-            resolve();
-          };
-        });
-        this.wake = null;
-      }
+      if (!job && this.running) await this.pause(pauseMs);
     }
   }
 
-  private async process(job: ClaimedJob): Promise<void> {
-    const { db } = this.ctx;
-    const [capture] = await db.select().from(captures).where(eq(captures.id, job.captureId));
+  private pause(ms: number): Promise<void> {
+    return new Promise<void>((resolve) => {
+      const wake = () => {
+        clearTimeout(t);
+        this.wakers.delete(wake);
+        resolve();
+      };
+      const t = setTimeout(wake, ms);
+      this.wakers.add(wake);
+    });
+  }
+
+  private async process(job: ClaimedJob, slot: IngestWorkerClient): Promise<void> {
+    const { db, config } = this.ctx;
+    const capture = await findCaptureRow(db, job.captureId);
     if (!capture) return;
-    await db.update(captures).set({ status: 'processing' }).where(eq(captures.id, capture.id));
+    if (job.attempts > MAX_ATTEMPTS) {
+      const message = unexpectedFailure(capture.id, `job ${job.id} was claimed ${job.attempts} times without finishing`, 'processing stopped without finishing several times');
+      await storeFailure(db, job, this.workerId, { code: 'internal', message });
+      return;
+    }
+    // A re-analysis leaves the capture readable, with its current results, until the new ones are stored.
+    if (job.kind === 'ingest') await db.update(captures).set({ status: 'processing' }).where(eq(captures.id, capture.id));
     // Four heartbeats per stale period, so a live worker is never taken for a dead one.
-    const everyMs = Math.min(5000, (this.ctx.config.JOB_STALE_SECONDS * 1000) / 4);
+    const everyMs = Math.min(5000, (config.JOB_STALE_SECONDS * 1000) / 4);
     const beat = setInterval(() => void heartbeat(db, job.id, this.workerId).catch(() => undefined), everyMs);
     let readable: { file: string; done(): Promise<void> } | null = null;
     try {
       const t0 = performance.now();
-      readable = await readableOriginal(this.ctx, capture.originalPath ?? '');
-      const result = await this.worker.ingest({ file: readable.file, sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint });
+      readable = await readableOriginal(this.ctx, capture.id);
+      const request = { file: readable.file, sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint, limits: { maxSamples: maxSamples(config) } };
+      const result = await slot.ingest(request, taskBudgetMs(config, capture.sizeBytes));
       const t1 = performance.now();
-      if (!this.running) return;
-      await this.store(job, result);
+      if (!this.running) return await this.giveBack(job);
+      await storeReady(db, job, this.workerId, result);
       if (process.env.CRESTLINE_TRACE) console.log(`capture ${capture.id}: read and analysed in ${(t1 - t0).toFixed(0)} ms, stored in ${(performance.now() - t1).toFixed(0)} ms`);
-      const task = compressOriginal(this.ctx, capture.id).catch((err) => console.error('compressing original:', err));
-      this.background.add(task);
-      void task.finally(() => this.background.delete(task));
+      this.inBackground(compressOriginal(this.ctx, capture.id).catch((err) => console.error(`compressing the original of capture ${capture.id}:`, err)));
     } catch (err) {
-      if (!this.running) return;
-      if (err instanceof IngestFailure && err.code !== 'internal') await this.fail(job, err.code, err.message, err.line);
-      else if (job.attempts >= MAX_ATTEMPTS) await this.fail(job, 'internal', `Processing failed ${job.attempts} times: ${(err as Error).message}`);
-      else await db.update(jobs).set({ status: 'queued', lastError: describe(err) }).where(ownedBy(job.id, this.workerId));
+      if (!this.running) return await this.giveBack(job);
+      if (err instanceof IngestFailure && err.code !== 'internal') {
+        await storeFailure(db, job, this.workerId, { code: err.code, message: err.message, line: err.line });
+      } else if (job.attempts >= MAX_ATTEMPTS) {
+        await storeFailure(db, job, this.workerId, { code: 'internal', message: unexpectedFailure(capture.id, err) });
+      } else {
+        // Worth another try (a worker that died, a lost connection); the details go to the log only.
+        const note = unexpectedFailure(capture.id, err, `attempt ${job.attempts} failed`);
+        await db.update(jobs).set({ status: 'queued', lastError: note }).where(ownedBy(job.id, this.workerId));
+      }
     } finally {
       clearInterval(beat);
       await readable?.done();
     }
   }
 
-  private async store(job: ClaimedJob, r: IngestResult): Promise<void> {
-    await retryOnDeadlock(() => this.storeOnce(job, r));
+  private async giveBack(job: ClaimedJob): Promise<void> {
+    if (!this.releaseOnStop) return;
+    await releaseJob(this.ctx.db, job, this.workerId);
+    if (job.kind === 'ingest') await this.ctx.db.update(captures).set({ status: 'queued' }).where(and(eq(captures.id, job.captureId), eq(captures.status, 'processing')));
   }
 
-  private async storeOnce(job: ClaimedJob, r: IngestResult): Promise<void> {
-    await this.ctx.db.transaction(async (tx) => {
-      const [done] = await tx.update(jobs).set({ status: 'done', finishedAt: sql`NOW()` }).where(ownedBy(job.id, this.workerId));
-      if (done.affectedRows !== 1) throw new Error(`job ${job.id} was taken over by another worker`);
-      await clearStoredSamples(tx, job.captureId);
-      for (const [idx, c] of r.channels.entries()) {
-        await tx.insert(channels).values({ captureId: job.captureId, idx, name: c.name.slice(0, 120), unit: c.unit.slice(0, 20), invalidCount: c.invalidCount, analysis: c.analysis });
-        let start = 0;
-        for (const [chunkIdx, data] of c.chunks.entries()) {
-          const buf = asBuffer(data);
-          await tx.insert(sampleChunks).values({ captureId: job.captureId, channelIdx: idx, chunkIdx, startIndex: start, count: buf.length / 4, data: buf });
-          start += buf.length / 4;
-        }
-        for (const o of c.overviews) await tx.insert(overviews).values({ captureId: job.captureId, channelIdx: idx, bucketSize: o.bucketSize, data: asBuffer(o.data) });
-        if (c.suggestions.length) {
-          await tx.insert(annotations).values(
-            c.suggestions.map((a) => ({ captureId: job.captureId, channelIdx: idx, startS: a.startS, endS: a.endS, label: a.label, note: '', severity: a.severity, source: 'finder' as const, state: 'suggested' as const, reason: a.reason })),
-          );
-        }
-      }
-      await tx
-        .update(captures)
-        .set({
-          status: 'ready',
-          errorCode: null,
-          errorMessage: null,
-          errorLine: null,
-          sampleRate: r.sampleRate,
-          sampleCount: r.sampleCount,
-          t0: r.t0,
-          detected: r.detected,
-          metadata: r.metadata,
-          engineVersion: r.engineVersion,
-          readyAt: sql`NOW()`,
-        })
-        .where(eq(captures.id, job.captureId));
-    });
-  }
-
-  private async fail(job: ClaimedJob, code: string, message: string, line?: number): Promise<void> {
-    await retryOnDeadlock(() => this.failOnce(job, code, message, line));
-  }
-
-  private async failOnce(job: ClaimedJob, code: string, message: string, line?: number): Promise<void> {
-    await this.ctx.db.transaction(async (tx) => {
-      const [owned] = await tx.update(jobs).set({ status: 'failed', lastError: message, finishedAt: sql`NOW()` }).where(ownedBy(job.id, this.workerId));
-      if (owned.affectedRows !== 1) return;
-      await clearStoredSamples(tx, job.captureId);
-      await tx.update(captures).set({ status: 'failed', errorCode: code, errorMessage: message, errorLine: line ?? null }).where(eq(captures.id, job.captureId));
-    });
+  private inBackground(task: Promise<unknown>): void {
+    this.background.add(task);
+    void task.finally(() => this.background.delete(task));
   }
 }

@@ -1,38 +1,57 @@
 import { and, eq, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { jobs } from '../db/schema';
+import { captures, jobs } from '../db/schema';
 
 export interface ClaimedJob {
   id: number;
   captureId: number;
   kind: 'ingest' | 'reanalyse';
+  /** Counting this claim: a job whose process died mid-run comes back with a higher count. */
   attempts: number;
 }
 
-/** A job is retried this often before its capture is marked failed. */
+/** A job is tried this often; a claim beyond it fails the job, so a poison file cannot come back forever. */
 export const MAX_ATTEMPTS = 3;
 
 /**
  * Claims the oldest queued job, or a running one whose worker stopped heartbeating `staleSeconds` ago
- * (its process died). SKIP LOCKED lets several server processes claim side by side without waiting on
- * or taking each other's rows.
+ * (its process died), skipping captures that another worker is processing. SKIP LOCKED lets several
+ * server processes claim side by side without waiting on or taking each other's rows.
+ *
+ * Read committed, and the capture row locked before the last check: two processes picking two jobs of
+ * one capture at the same moment are serialised there, and the second sees the first's claim.
  */
 export async function claimJob(db: Db, workerId: string, staleSeconds: number): Promise<ClaimedJob | null> {
-  return db.transaction(async (tx) => {
-    const [row] = await tx
-      .select({ id: jobs.id, captureId: jobs.captureId, kind: jobs.kind, attempts: jobs.attempts })
-      .from(jobs)
-      .where(sql`${jobs.status} = 'queued' OR (${jobs.status} = 'running' AND ${jobs.heartbeatAt} < NOW() - INTERVAL ${staleSeconds} SECOND)`)
-      .orderBy(jobs.id)
-      .limit(1)
-      .for('update', { skipLocked: true });
-    if (!row) return null;
-    await tx
-      .update(jobs)
-      .set({ status: 'running', lockedBy: workerId, heartbeatAt: sql`NOW()`, attempts: sql`${jobs.attempts} + 1` })
-      .where(eq(jobs.id, row.id));
-    return { ...row, attempts: row.attempts + 1 };
-  });
+  const stale = sql`${jobs.heartbeatAt} < NOW() - INTERVAL ${staleSeconds} SECOND`;
+  return db.transaction(
+    async (tx) => {
+      const [row] = await tx
+        .select({ id: jobs.id, captureId: jobs.captureId, kind: jobs.kind, attempts: jobs.attempts })
+        .from(jobs)
+        .where(
+          sql`(${jobs.status} = 'queued' OR (${jobs.status} = 'running' AND ${stale}))
+              AND NOT EXISTS (SELECT 1 FROM jobs AS busy WHERE busy.capture_id = ${jobs.captureId} AND busy.id <> ${jobs.id}
+                              AND busy.status = 'running' AND busy.heartbeat_at >= NOW() - INTERVAL ${staleSeconds} SECOND)`,
+        )
+        .orderBy(jobs.id)
+        .limit(1)
+        .for('update', { skipLocked: true });
+      if (!row) return null;
+      await tx.select({ id: captures.id }).from(captures).where(eq(captures.id, row.captureId)).for('update');
+      const [busy] = await tx
+        .select({ id: jobs.id })
+        .from(jobs)
+        .where(and(eq(jobs.captureId, row.captureId), eq(jobs.status, 'running'), sql`${jobs.id} <> ${row.id}`, sql`NOT (${stale})`))
+        .limit(1);
+      if (busy) return null;
+      await tx
+        .update(jobs)
+        .set({ status: 'running', lockedBy: workerId, heartbeatAt: sql`NOW()`, attempts: sql`${jobs.attempts} + 1` })
+        .where(eq(jobs.id, row.id));
+      return { ...row, attempts: row.attempts + 1 };
+    },
+    { isolationLevel: 'read committed' },
+  );
 }
 
 /** Tells other processes the job's worker is alive. */
@@ -43,7 +62,26 @@ export async function heartbeat(db: Db, jobId: number, workerId: string): Promis
 /** Where a job still belongs to this worker: the condition every finishing write carries. */
 export const ownedBy = (jobId: number, workerId: string) => and(eq(jobs.id, jobId), eq(jobs.lockedBy, workerId), eq(jobs.status, 'running'));
 
-/** Queues a capture for processing; pass the transaction that creates or resets the capture. */
-export async function enqueue(db: Pick<Db, 'insert'>, captureId: number, kind: 'ingest' | 'reanalyse'): Promise<void> {
-  await db.insert(jobs).values({ captureId, kind });
+/**
+ * Gives a job back to the queue when its worker stops on purpose (a shutdown), without counting the
+ * interrupted run as an attempt: the next start picks it up at once rather than after a stale period.
+ */
+export async function releaseJob(db: Db, job: ClaimedJob, workerId: string): Promise<void> {
+  await db
+    .update(jobs)
+    .set({ status: 'queued', lockedBy: null, heartbeatAt: null, attempts: sql`GREATEST(${jobs.attempts} - 1, 0)` })
+    .where(ownedBy(job.id, workerId));
+}
+
+/**
+ * Queues a capture for processing unless a job for it is already waiting or running (a second
+ * re-analysis request, or two admins at once, must not process one capture twice side by side).
+ * Pass the transaction that creates or resets the capture. Returns whether a job was added.
+ */
+export async function enqueue(db: Pick<Db, 'execute'>, captureId: number, kind: 'ingest' | 'reanalyse'): Promise<boolean> {
+  const [result] = (await db.execute(
+    sql`INSERT INTO jobs (kind, capture_id) SELECT ${kind}, ${captureId} FROM DUAL
+        WHERE NOT EXISTS (SELECT 1 FROM jobs WHERE capture_id = ${captureId} AND status IN ('queued', 'running'))`,
+  )) as unknown as [{ affectedRows: number }];
+  return result.affectedRows === 1;
 }

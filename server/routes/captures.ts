@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import multer from 'multer';
 import { mkdirSync } from 'node:fs';
+import { rm } from 'node:fs/promises';
 import path from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import { CaptureListQuery, SampleRateRequest, SamplesQuery, UpdateCaptureRequest, UploadFields } from '../../shared/schemas/capture';
@@ -41,9 +42,14 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
       });
     }, async (req, res) => {
       if (!req.file) throw new AppError(400, 'no_file', 'Attach the capture file as the form field "file"');
-      const result = await acceptUpload(ctx, currentUser(req), req.file, UploadFields.parse(req.body ?? {}));
-      if (!result.duplicate) onQueued();
-      res.status(result.duplicate ? 200 : 202).json(result);
+      try {
+        const result = await acceptUpload(ctx, currentUser(req), req.file, UploadFields.parse(req.body ?? {}));
+        if (!result.duplicate) onQueued();
+        res.status(result.duplicate ? 200 : 202).json(result);
+      } finally {
+        // Kept files were moved away; whatever is left here (bad fields, a failure) is only temporary.
+        await rm(req.file.path, { force: true });
+      }
     })
     .get('/captures', async (req, res) => {
       res.json(await captureList(ctx, CaptureListQuery.parse(req.query)));

@@ -9,7 +9,7 @@ import { findProject } from '../db/projectRepository';
 import { captures } from '../db/schema';
 import { AppError, forbidden, notFound } from '../errors';
 import { enqueue } from '../jobs/jobQueue';
-import { keepOriginal, removeOriginal, sha256OfFile } from './originalFiles';
+import { keepOriginal, removeCaptureFiles, sha256OfFile } from './originalFiles';
 import { defaultProjectId } from './projectService';
 
 export interface UploadedFile {
@@ -38,17 +38,25 @@ export async function acceptUpload(
     const existing = await findCaptureBySha(ctx.db, projectId, sha256);
     if (existing) return { id: existing.id, status: existing.status, duplicate: true };
     const name = fields.name || file.originalname.replace(/\.[^.]+$/, '') || 'Capture';
-    const id = await ctx.db.transaction(async (tx) => {
-      const [{ id }] = await tx
-        .insert(captures)
-        .values({ projectId, name: name.slice(0, 200), uploadedBy: user.id, originalName: file.originalname.slice(0, 255), sha256, sizeBytes: file.size, sampleRateHint: fields.sampleRate ?? null })
-        .$returningId();
-      const relative = await keepOriginal(ctx, file.path, id);
-      await tx.update(captures).set({ originalPath: relative }).where(eq(captures.id, id));
-      await enqueue(tx, id, 'ingest');
-      return id;
-    });
-    return { id, status: 'queued', duplicate: false };
+    let keptAs: number | null = null;
+    try {
+      const id = await ctx.db.transaction(async (tx) => {
+        const [{ id }] = await tx
+          .insert(captures)
+          .values({ projectId, name: name.slice(0, 200), uploadedBy: user.id, originalName: file.originalname.slice(0, 255), sha256, sizeBytes: file.size, sampleRateHint: fields.sampleRate ?? null })
+          .$returningId();
+        const relative = await keepOriginal(ctx, file.path, id);
+        keptAs = id;
+        await tx.update(captures).set({ originalPath: relative }).where(eq(captures.id, id));
+        await enqueue(tx, id, 'ingest');
+        return id;
+      });
+      return { id, status: 'queued', duplicate: false };
+    } catch (err) {
+      // Rolled back after the file was moved: the capture id was never committed, so neither is its file.
+      if (keptAs !== null) await removeCaptureFiles(ctx, keptAs);
+      throw err;
+    }
   } finally {
     await rm(file.path, { force: true });
   }
@@ -82,10 +90,11 @@ async function ownedCapture(ctx: AppContext, user: User, id: number) {
   return row;
 }
 
+/** Deletes the capture (samples, marks and jobs go with it by cascade), then its files, once that committed. */
 export async function deleteCapture(ctx: AppContext, user: User, id: number): Promise<void> {
-  const row = await ownedCapture(ctx, user, id);
+  await ownedCapture(ctx, user, id);
   await ctx.db.delete(captures).where(eq(captures.id, id));
-  await removeOriginal(ctx, row.originalPath);
+  await removeCaptureFiles(ctx, id);
 }
 
 export async function updateCapture(ctx: AppContext, user: User, id: number, req: UpdateCaptureRequest): Promise<CaptureDetail> {
@@ -105,10 +114,10 @@ export async function provideSampleRate(ctx: AppContext, user: User, id: number,
   return captureDetail(ctx, id);
 }
 
-/** Queues every ready capture analysed by an older engine for re-analysis; returns how many. */
+/** Queues every ready capture analysed by an older engine for re-analysis, once each; returns how many were queued. */
 export async function reanalyseOutdated(ctx: AppContext): Promise<number> {
   const rows = await ctx.db.select({ id: captures.id, engineVersion: captures.engineVersion }).from(captures).where(eq(captures.status, 'ready'));
-  const outdated = rows.filter((r) => (r.engineVersion ?? 0) < ENGINE_VERSION);
-  for (const r of outdated) await enqueue(ctx.db, r.id, 'reanalyse');
-  return outdated.length;
+  let queued = 0;
+  for (const r of rows) if ((r.engineVersion ?? 0) < ENGINE_VERSION && (await enqueue(ctx.db, r.id, 'reanalyse'))) queued++;
+  return queued;
 }

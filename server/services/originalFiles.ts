@@ -1,10 +1,10 @@
-import { createHash } from 'node:crypto';
+import { createHash, randomBytes } from 'node:crypto';
 import { createReadStream, createWriteStream } from 'node:fs';
-import { mkdir, rename, rm } from 'node:fs/promises';
+import { link, mkdir, readdir, rename, rm } from 'node:fs/promises';
 import path from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import { createGunzip, createGzip } from 'node:zlib';
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import type { AppContext } from '../context';
 import { captures } from '../db/schema';
 
@@ -27,30 +27,72 @@ export async function keepOriginal(ctx: AppContext, tempFile: string, captureId:
 /**
  * Gzips the kept original once its capture is ready (zlib works on libuv's thread pool, off the event
  * loop), then points the capture at the compressed file. Instrument CSVs shrink about five- to ten-fold.
+ *
+ * The gzip is written under a name of its own and renamed into place, so two runs for one capture (a
+ * re-analysis soon after the ingest) never write into the same file. The capture is pointed at it only
+ * if it still exists and still names the plain file; otherwise (deleted meanwhile, or another run won)
+ * the new file is removed, so nothing is left behind.
  */
 export async function compressOriginal(ctx: AppContext, captureId: number): Promise<void> {
   const [row] = await ctx.db.select({ originalPath: captures.originalPath }).from(captures).where(eq(captures.id, captureId));
   if (!row?.originalPath || row.originalPath.endsWith('.gz')) return;
-  const source = path.join(ctx.config.DATA_DIR, row.originalPath);
-  const target = `${row.originalPath}.gz`;
-  await pipeline(createReadStream(source), createGzip({ level: 6 }), createWriteStream(path.join(ctx.config.DATA_DIR, target)));
-  await ctx.db.update(captures).set({ originalPath: target }).where(eq(captures.id, captureId));
-  await rm(source, { force: true });
+  const plain = row.originalPath;
+  const source = path.join(ctx.config.DATA_DIR, plain);
+  const target = `${plain}.gz`;
+  const partial = path.join(ctx.config.DATA_DIR, `${target}.${randomBytes(4).toString('hex')}.part`);
+  try {
+    await pipeline(createReadStream(source), createGzip({ level: 6 }), createWriteStream(partial, { mode: 0o600 }));
+    await rename(partial, path.join(ctx.config.DATA_DIR, target));
+  } catch (err) {
+    await rm(partial, { force: true });
+    // A file went away: another run compressed it, or the capture was deleted (with its files).
+    if ((err as NodeJS.ErrnoException).code === 'ENOENT') return;
+    throw err;
+  }
+  const [moved] = await ctx.db
+    .update(captures)
+    .set({ originalPath: target })
+    .where(and(eq(captures.id, captureId), eq(captures.originalPath, plain)));
+  if (moved.affectedRows === 1) {
+    await rm(source, { force: true });
+    return;
+  }
+  // Deleted meanwhile: its files go with it. Compressed by another run: that run's file is the same.
+  const [still] = await ctx.db.select({ originalPath: captures.originalPath }).from(captures).where(eq(captures.id, captureId));
+  if (!still) await removeCaptureFiles(ctx, captureId);
 }
 
-export async function removeOriginal(ctx: AppContext, relative: string | null): Promise<void> {
-  if (relative) await rm(path.join(ctx.config.DATA_DIR, relative), { force: true });
+/** Removes every file kept for a capture (plain or compressed original); call after the delete committed. */
+export async function removeCaptureFiles(ctx: AppContext, captureId: number): Promise<void> {
+  const dir = path.join(ctx.config.DATA_DIR, ORIGINALS_DIR);
+  const prefix = `${captureId}.csv`;
+  const names = await readdir(dir).catch(() => [] as string[]);
+  await Promise.all(names.filter((n) => n === prefix || n.startsWith(`${prefix}.`)).map((n) => rm(path.join(dir, n), { force: true })));
 }
 
-/** A plain-text copy of the original for the reader: the file itself, or a gunzipped temporary copy. */
-export async function readableOriginal(ctx: AppContext, relative: string): Promise<{ file: string; done(): Promise<void> }> {
-  const file = path.join(ctx.config.DATA_DIR, relative);
-  if (!relative.endsWith('.gz')) return { file, done: async () => undefined };
+/**
+ * A plain-text copy of a capture's original for the reader, in DATA_DIR/tmp: a hard link to the plain
+ * file (free, and it outlives a compression that removes the plain name meanwhile), or a gunzipped
+ * copy. If the file moved between reading its name and opening it, the name is read again once.
+ * `done()` removes the copy; the temporary folder is also swept at start.
+ */
+export async function readableOriginal(ctx: AppContext, captureId: number): Promise<{ file: string; done(): Promise<void> }> {
   const tmpDir = path.join(ctx.config.DATA_DIR, 'tmp');
-  await mkdir(tmpDir, { recursive: true });
-  const tmp = path.join(tmpDir, `${path.basename(relative, '.gz')}-${process.pid}-${Date.now()}`);
-  await pipeline(createReadStream(file), createGunzip(), createWriteStream(tmp));
-  return { file: tmp, done: () => rm(tmp, { force: true }) };
+  await mkdir(tmpDir, { recursive: true, mode: 0o700 });
+  for (let attempt = 1; ; attempt++) {
+    const [row] = await ctx.db.select({ originalPath: captures.originalPath }).from(captures).where(eq(captures.id, captureId));
+    if (!row?.originalPath) throw new Error(`capture ${captureId} has no original file`);
+    const source = path.join(ctx.config.DATA_DIR, row.originalPath);
+    const tmp = path.join(tmpDir, `${captureId}-${randomBytes(6).toString('hex')}.csv`);
+    try {
+      if (row.originalPath.endsWith('.gz')) await pipeline(createReadStream(source), createGunzip(), createWriteStream(tmp, { mode: 0o600 }));
+      else await link(source, tmp);
+      return { file: tmp, done: () => rm(tmp, { force: true }) };
+    } catch (err) {
+      await rm(tmp, { force: true });
+      if ((err as NodeJS.ErrnoException).code !== 'ENOENT' || attempt >= 2) throw err;
+    }
+  }
 }
 
 /** The original as a stream of its text, whether kept plain or compressed. */

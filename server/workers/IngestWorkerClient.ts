@@ -3,6 +3,7 @@ import { Worker } from 'node:worker_threads';
 import type { AnalyseRequest, IngestedChannel, IngestRequest, IngestResult, ParsedFile } from './ingestTask';
 import type { IngestReply, IngestTask } from './ingestWorker';
 
+/** A capture the worker could not read or analyse: a user-facing message, with the file line when known. */
 export class IngestFailure extends Error {
   constructor(
     readonly code: string,
@@ -16,6 +17,8 @@ export class IngestFailure extends Error {
 interface PooledWorker {
   worker: Worker;
   busy: number;
+  /** Settles when the thread has loaded its code (about 0.4 s): budgets count from then. */
+  ready: Promise<void>;
 }
 
 /**
@@ -24,6 +27,11 @@ interface PooledWorker {
  * A file is read by one worker; its channels are then analysed as separate tasks, spread over the pool.
  * One worker by default: on this two-core machine a second one brought no gain (a 2-channel, 1 M-row
  * capture read and analysed in 1.50 s with one, 1.51 s with two), so it would only cost memory.
+ *
+ * Every task has a time budget: a worker still busy when it runs out is terminated (V8 stops even a
+ * tight loop or a backtracking regular expression), the task fails with `timeout`, and the next task
+ * gets a fresh worker. Each job slot of the processor owns its own client, so killing one file's
+ * worker never touches another file's task.
  */
 export class IngestWorkerClient {
   private workers: PooledWorker[] = [];
@@ -32,15 +40,20 @@ export class IngestWorkerClient {
 
   constructor(private readonly size = 1) {}
 
+  /** Starts the workers ahead of the first task, so its budget is not spent compiling. */
+  warm(): void {
+    while (this.workers.length < this.size) this.workers.push(this.spawn());
+  }
+
   private spawn(): PooledWorker {
-    const pooled: PooledWorker = {
-      busy: 0,
-      worker: new Worker(new URL('./bootstrap.mjs', import.meta.url), {
-        workerData: { entry: new URL('./ingestWorker.ts', import.meta.url).href },
-        resourceLimits: { maxOldGenerationSizeMb: 4096 },
-      }),
-    };
-    pooled.worker.on('message', (reply: IngestReply) => {
+    const worker = new Worker(new URL('./bootstrap.mjs', import.meta.url), {
+      workerData: { entry: new URL('./ingestWorker.ts', import.meta.url).href },
+      resourceLimits: { maxOldGenerationSizeMb: 4096 },
+    });
+    let markReady = () => undefined as void;
+    const pooled: PooledWorker = { busy: 0, worker, ready: new Promise<void>((resolve) => (markReady = resolve)) };
+    pooled.worker.on('message', (reply: IngestReply | { ready: true }) => {
+      if ('ready' in reply) return markReady();
       const p = this.pending.get(reply.id);
       if (!p) return;
       this.pending.delete(reply.id);
@@ -57,38 +70,62 @@ export class IngestWorkerClient {
       }
     };
     pooled.worker.on('error', fail);
-    pooled.worker.on('exit', (code) => fail(new Error(`An ingest worker stopped (exit code ${code})`)));
+    pooled.worker.on('exit', (code) => {
+      markReady();
+      fail(new Error(`An ingest worker stopped (exit code ${code})`));
+    });
     pooled.worker.unref();
     return pooled;
   }
 
-  private run<T>(task: IngestTask, transfer: ArrayBuffer[] = []): Promise<T> {
-    while (this.workers.length < this.size) this.workers.push(this.spawn());
+  private run<T>(task: IngestTask, budgetMs: number, transfer: ArrayBuffer[] = []): Promise<T> {
+    this.warm();
     const pooled = this.workers.reduce((a, b) => (b.busy < a.busy ? b : a));
     const id = this.nextId++;
     pooled.busy++;
     return new Promise<T>((resolve, reject) => {
-      this.pending.set(id, { resolve: resolve as (r: unknown) => void, reject, owner: pooled });
+      let timer: NodeJS.Timeout | undefined;
+      const overBudget = () => {
+        if (!this.pending.has(id)) return;
+        this.pending.delete(id);
+        reject(new IngestFailure('timeout', `Processing took longer than ${formatSeconds(budgetMs / 1000)}, the time allowed for a file of this size, and was stopped.`));
+        // Other tasks on this worker (the same file's channels) are rejected by its exit.
+        this.workers = this.workers.filter((w) => w !== pooled);
+        void pooled.worker.terminate();
+      };
+      void pooled.ready.then(() => {
+        if (this.pending.has(id)) timer = setTimeout(overBudget, budgetMs);
+      });
+      const settle =
+        <A>(f: (a: A) => void) =>
+        (a: A) => {
+          clearTimeout(timer);
+          f(a);
+        };
+      this.pending.set(id, { resolve: settle(resolve as (r: unknown) => void), reject: settle(reject), owner: pooled });
       pooled.worker.postMessage({ id, task }, transfer);
     });
   }
 
-  /** Reads a capture file, then analyses and packs its channels in parallel. */
-  async ingest(request: IngestRequest): Promise<IngestResult> {
-    const parsed = await this.run<ParsedFile>({ kind: 'parse', request });
+  /** Reads a capture file, then analyses and packs its channels in parallel, each task within `budgetMs`. */
+  async ingest(request: IngestRequest, budgetMs: number): Promise<IngestResult> {
+    const parsed = await this.run<ParsedFile>({ kind: 'parse', request }, budgetMs);
     const channels = await Promise.all(
       parsed.channels.map((channel) => {
         const analyse: AnalyseRequest = { channel, sampleRate: parsed.sampleRate, t0: parsed.t0 };
-        return this.run<IngestedChannel>({ kind: 'analyse', request: analyse }, [channel.samples.buffer as ArrayBuffer]);
+        return this.run<IngestedChannel>({ kind: 'analyse', request: analyse }, budgetMs, [channel.samples.buffer as ArrayBuffer]);
       }),
     );
     const { sampleRate, sampleCount, t0, detected, metadata } = parsed;
     return { sampleRate, sampleCount, t0, detected, metadata, engineVersion: ENGINE_VERSION, channels };
   }
 
+  /** Terminates every worker; their unfinished tasks are rejected. The next task starts fresh ones. */
   async close(): Promise<void> {
     const all = this.workers;
     this.workers = [];
     await Promise.all(all.map((w) => w.worker.terminate()));
   }
 }
+
+const formatSeconds = (s: number) => (s >= 10 ? `${Math.round(s)} s` : `${Number(s.toPrecision(2))} s`);

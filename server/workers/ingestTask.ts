@@ -10,6 +10,8 @@ export interface IngestRequest {
   file: string;
   sizeBytes: number;
   sampleRateHint: number | null;
+  /** Bounds on what the reader accepts (rows × channels from the server's memory setting). */
+  limits?: { maxSamples?: number };
 }
 
 export interface IngestedChannel {

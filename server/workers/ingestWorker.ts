@@ -29,3 +29,6 @@ parentPort!.on('message', ({ id, task }: { id: number; task: IngestTask }) => {
     parentPort!.postMessage({ id, ok: false, error } satisfies IngestReply);
   }
 });
+
+// Tells the pool that the code is loaded, so a task's time budget does not include start-up.
+parentPort!.postMessage({ ready: true });

@@ -28,3 +28,29 @@ export function sineCsv(peak: number, f: number, fs: number, seconds: number, ph
   for (let i = 0; i < n; i++) lines.push(`${(i / fs).toPrecision(10)},${(peak * Math.sin(2 * Math.PI * f * (i / fs) + phase)).toPrecision(12)}`);
   return lines.join('\n') + '\n';
 }
+
+/**
+ * A long two-channel mains record (325 V peak, 10 A peak, 50 Hz at 100 kS/s), about 27 bytes a row:
+ * big enough that reading it takes a noticeable time, for tests of budgets, stops and faults.
+ */
+export function longTwoChannelCsv(rows: number): Buffer {
+  const lines = new Array<string>(rows + 1);
+  lines[0] = 'Time (s),CH1 (V),CH2 (A)';
+  const w = 2 * Math.PI * 50;
+  for (let i = 0; i < rows; i++) {
+    const t = i / 100_000;
+    lines[i + 1] = `${t.toFixed(5)},${(325 * Math.sin(w * t)).toFixed(3)},${(10 * Math.sin(w * t - 0.5)).toFixed(4)}`;
+  }
+  return Buffer.from(lines.join('\n') + '\n');
+}
+
+/** Polls until the capture has the given status (or fails the test after `timeoutMs`). */
+export async function waitStatus(agent: Agent, id: number, status: string, timeoutMs = 30_000) {
+  const until = Date.now() + timeoutMs;
+  for (;;) {
+    const res = await agent.get(`/api/captures/${id}`);
+    if (res.body.status === status) return res.body;
+    if (Date.now() > until) throw new Error(`capture ${id} is ${res.body.status}, not ${status}, after ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 20));
+  }
+}

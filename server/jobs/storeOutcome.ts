@@ -1,0 +1,95 @@
+import { and, eq, sql } from 'drizzle-orm';
+import type { Db } from '../db/client';
+import { annotations, captures, channels, jobs, overviews, sampleChunks } from '../db/schema';
+import type { IngestResult } from '../workers/ingestTask';
+import { ownedBy, type ClaimedJob } from './jobQueue';
+import { shortMessage } from './processingFailure';
+
+type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+
+const asBuffer = (u: Uint8Array) => Buffer.from(u.buffer, u.byteOffset, u.byteLength);
+
+/**
+ * Removes what an earlier run stored for a capture (a retry, a re-analysis). Only when there is
+ * something: a DELETE over an empty range takes gap locks that deadlock with other captures' inserts.
+ */
+async function clearStoredSamples(tx: Tx, captureId: number): Promise<void> {
+  const [existing] = await tx.select({ n: sql<number>`COUNT(*)` }).from(channels).where(eq(channels.captureId, captureId));
+  if (Number(existing.n) === 0) return;
+  for (const table of [sampleChunks, overviews, channels]) await tx.delete(table).where(eq(table.captureId, captureId));
+  // Suggestions not yet acted on are replaced by the new run's; accepted or dismissed ones stay.
+  await tx.delete(annotations).where(and(eq(annotations.captureId, captureId), eq(annotations.source, 'finder'), eq(annotations.state, 'suggested')));
+}
+
+/** InnoDB may pick a transaction as a deadlock victim; it is then safe to run it again. */
+async function retryOnDeadlock<T>(fn: () => Promise<T>, tries = 4): Promise<T> {
+  for (let i = 1; ; i++) {
+    try {
+      return await fn();
+    } catch (err) {
+      const code = (err as { cause?: { errno?: number } }).cause?.errno ?? (err as { errno?: number }).errno;
+      if (code !== 1213 || i >= tries) throw err;
+    }
+  }
+}
+
+/**
+ * Stores a finished run in one transaction: channels, samples, pyramid, finder suggestions, and the
+ * capture marked ready, on condition that the job still belongs to this worker (else all is rolled back).
+ */
+export function storeReady(db: Db, job: ClaimedJob, workerId: string, r: IngestResult): Promise<void> {
+  return retryOnDeadlock(() =>
+    db.transaction(async (tx) => {
+      const [done] = await tx.update(jobs).set({ status: 'done', finishedAt: sql`NOW()` }).where(ownedBy(job.id, workerId));
+      if (done.affectedRows !== 1) throw new Error(`job ${job.id} was taken over by another worker`);
+      await clearStoredSamples(tx, job.captureId);
+      for (const [idx, c] of r.channels.entries()) {
+        await tx.insert(channels).values({ captureId: job.captureId, idx, name: c.name.slice(0, 120), unit: c.unit.slice(0, 20), invalidCount: c.invalidCount, analysis: c.analysis });
+        let start = 0;
+        for (const [chunkIdx, data] of c.chunks.entries()) {
+          const buf = asBuffer(data);
+          await tx.insert(sampleChunks).values({ captureId: job.captureId, channelIdx: idx, chunkIdx, startIndex: start, count: buf.length / 4, data: buf });
+          start += buf.length / 4;
+        }
+        for (const o of c.overviews) await tx.insert(overviews).values({ captureId: job.captureId, channelIdx: idx, bucketSize: o.bucketSize, data: asBuffer(o.data) });
+        if (c.suggestions.length) {
+          await tx.insert(annotations).values(
+            c.suggestions.map((a) => ({ captureId: job.captureId, channelIdx: idx, startS: a.startS, endS: a.endS, label: a.label, note: '', severity: a.severity, source: 'finder' as const, state: 'suggested' as const, reason: a.reason })),
+          );
+        }
+      }
+      await tx
+        .update(captures)
+        .set({
+          status: 'ready',
+          errorCode: null,
+          errorMessage: null,
+          errorLine: null,
+          sampleRate: r.sampleRate,
+          sampleCount: r.sampleCount,
+          t0: r.t0,
+          detected: r.detected,
+          metadata: r.metadata,
+          engineVersion: r.engineVersion,
+          readyAt: sql`NOW()`,
+        })
+        .where(eq(captures.id, job.captureId));
+    }),
+  );
+}
+
+/**
+ * Ends a job that cannot succeed. An ingest leaves its capture failed with the (short) message and no
+ * samples; a re-analysis leaves the capture as it was, ready with its last good results.
+ */
+export function storeFailure(db: Db, job: ClaimedJob, workerId: string, failure: { code: string; message: string; line?: number }): Promise<void> {
+  const message = shortMessage(failure.message);
+  return retryOnDeadlock(() =>
+    db.transaction(async (tx) => {
+      const [owned] = await tx.update(jobs).set({ status: 'failed', lastError: message, finishedAt: sql`NOW()` }).where(ownedBy(job.id, workerId));
+      if (owned.affectedRows !== 1 || job.kind === 'reanalyse') return;
+      await clearStoredSamples(tx, job.captureId);
+      await tx.update(captures).set({ status: 'failed', errorCode: failure.code.slice(0, 40), errorMessage: message, errorLine: failure.line ?? null }).where(eq(captures.id, job.captureId));
+    }),
+  );
+}

@@ -1,0 +1,152 @@
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, readdirSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { eq } from 'drizzle-orm';
+import supertest from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { channels, jobs } from '../../server/db/schema';
+import { CaptureProcessor } from '../../server/jobs/captureProcessor';
+import type { RunningServer } from '../../server/server';
+import { longTwoChannelCsv, sineCsv, uploadText, waitSettled, waitStatus } from '../helpers/captures';
+import { ADMIN, resetDatabase, signedIn, startTestServer, testDatabaseUrl } from '../helpers/testServer';
+
+/**
+ * Faults a team's server meets in real life: a process killed mid-ingest, the database stopped under
+ * an upload, a worker thread that dies. Each must end with every capture processed exactly once.
+ */
+let app: RunningServer;
+const cleanups: (() => Promise<unknown> | unknown)[] = [];
+
+beforeAll(async () => {
+  app = await startTestServer({ RUN_WORKER: '0', JOB_STALE_SECONDS: '1' });
+  await resetDatabase(app);
+});
+afterAll(async () => {
+  for (const c of cleanups.reverse()) await Promise.resolve(c()).catch(() => undefined);
+  await app.stop();
+});
+
+const rows = longTwoChannelCsv(1_500_000);
+let variant = 0;
+/** The long record with a row of its own, so that no upload is taken for a duplicate of another. */
+const longRecord = () => Buffer.concat([rows, Buffer.from(`15.00000,${++variant},0\n`)]);
+
+async function jobOf(captureId: number) {
+  return (await app.ctx.db.select().from(jobs).where(eq(jobs.captureId, captureId)))[0];
+}
+async function channelCount(captureId: number) {
+  return (await app.ctx.db.select().from(channels).where(eq(channels.captureId, captureId))).length;
+}
+
+/** `npm start`'s server process (without the scripts around it), on a free port; resolves with its URL. */
+function serverProcess(dataDir: string): Promise<{ child: ChildProcess; url: string }> {
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    env: {
+      ...process.env,
+      DATABASE_URL: testDatabaseUrl(),
+      PORT: '0',
+      HOST: '127.0.0.1',
+      DATA_DIR: dataDir,
+      NODE_ENV: 'test',
+      SERVE_CLIENT: '0',
+      RUN_WORKER: '1',
+      SEED_DEMO: '0',
+      BCRYPT_COST: '4',
+      SMTP_SINK_PORT: '0',
+      JOB_STALE_SECONDS: '1',
+      ADMIN_EMAIL: ADMIN.email,
+      ADMIN_PASSWORD: ADMIN.password,
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  cleanups.push(() => child.exitCode === null && child.kill('SIGKILL'));
+  return new Promise((resolve, reject) => {
+    let out = '';
+    const timer = setTimeout(() => reject(new Error(`the server did not start in 30 s:\n${out}`)), 30_000);
+    const read = (b: Buffer) => {
+      out += b.toString();
+      const m = /Crestline is ready: (http:\/\/127\.0\.0\.1:\d+)/.exec(out);
+      if (m) {
+        clearTimeout(timer);
+        resolve({ child, url: m[1] });
+      }
+    };
+    child.stdout!.on('data', read);
+    child.stderr!.on('data', read);
+    child.on('exit', (code) => reject(new Error(`the server exited (${code}) before it was ready:\n${out}`)));
+  });
+}
+
+async function signedInAt(url: string) {
+  const agent = supertest.agent(url);
+  agent.set('X-Crestline-Client', '1');
+  const res = await agent.post('/api/auth/login').send(ADMIN);
+  expect(res.status).toBe(200);
+  return agent;
+}
+
+describe('fault: the server process is killed mid-ingest', () => {
+  it('after SIGKILL and a new start, the capture completes exactly once', async () => {
+    const dataDir = mkdtempSync(path.join(tmpdir(), 'crestline-fault-'));
+    const first = await serverProcess(dataDir);
+    const agent = await signedInAt(first.url);
+    const id = (await uploadText(agent, 'killed.csv', longRecord())).body.id;
+    await waitStatus(agent, id, 'processing');
+    first.child.kill('SIGKILL');
+    await new Promise((r) => first.child.once('exit', r));
+    expect((await jobOf(id)).status).toBe('running');
+
+    const second = await serverProcess(dataDir);
+    const again = await signedInAt(second.url);
+    expect((await waitSettled(again, id, 60_000)).status).toBe('ready');
+    expect(await jobOf(id)).toMatchObject({ status: 'done', attempts: 2 });
+    expect(await channelCount(id)).toBe(2);
+    second.child.kill('SIGTERM');
+    await new Promise((r) => second.child.once('exit', r));
+  });
+});
+
+describe('fault: a worker thread dies', () => {
+  it('the job is tried again and the capture completes once', async () => {
+    const eng = await signedIn(app, ADMIN.email, ADMIN.password);
+    const p = new CaptureProcessor(app.ctx);
+    cleanups.push(() => p.stop());
+    p.start();
+    const id = (await uploadText(eng, 'worker-dies.csv', longRecord())).body.id;
+    p.nudge();
+    await waitStatus(eng, id, 'processing');
+    // Every worker thread of the processor goes, as after a crash inside one.
+    await Promise.all(p.slots.map((slot) => slot.close()));
+    expect((await waitSettled(eng, id, 60_000)).status).toBe('ready');
+    expect(await jobOf(id)).toMatchObject({ status: 'done', attempts: 2 });
+    expect(await channelCount(id)).toBe(2);
+  });
+});
+
+describe('fault: the database stops during an upload', () => {
+  const instance = 'fault-probe';
+  it('the upload is answered 503 and leaves nothing behind; a retry once it is back succeeds', async () => {
+    // A throwaway MariaDB instance of its own, beside the test database.
+    const port = String(Number(new URL(testDatabaseUrl()).port) + 13);
+    const url = execFileSync('scripts/db.sh', ['up', instance, port, 'crestline_fault']).toString().trim();
+    cleanups.push(() => execFileSync('scripts/db.sh', ['down', instance]));
+    const own = await startTestServer({ DATABASE_URL: url, RUN_WORKER: '1' });
+    cleanups.push(() => own.stop());
+    const agent = await signedIn(own, ADMIN.email, ADMIN.password);
+    const text = sineCsv(230 * Math.SQRT2, 50, 10_000, 0.2);
+
+    execFileSync('scripts/db.sh', ['down', instance]);
+    const refused = await uploadText(agent, 'during-outage.csv', text);
+    expect(refused.status).toBe(503);
+    expect(refused.body.error.code).toBe('unavailable');
+    expect(readdirSync(path.join(own.ctx.config.DATA_DIR, 'uploads'))).toEqual([]);
+
+    execFileSync('scripts/db.sh', ['up', instance, port, 'crestline_fault']);
+    const retried = await uploadText(agent, 'during-outage.csv', text);
+    expect(retried.status).toBe(202);
+    const capture = await waitSettled(agent, retried.body.id);
+    expect(capture.status).toBe('ready');
+    expect((await agent.get('/api/captures')).body.total).toBe(1);
+  });
+});
