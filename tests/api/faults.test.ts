@@ -133,6 +133,7 @@ describe('fault: the database stops during an upload', () => {
     cleanups.push(() => execFileSync('scripts/db.sh', ['down', instance]));
     const own = await startTestServer({ DATABASE_URL: url, RUN_WORKER: '1' });
     cleanups.push(() => own.stop());
+    await resetDatabase(own);
     const agent = await signedIn(own, ADMIN.email, ADMIN.password);
     const text = sineCsv(230 * Math.SQRT2, 50, 10_000, 0.2);
 
