@@ -45,6 +45,10 @@ export const ConfigSchema = z.object({
   /** Address people reach the app at, for links in mail. Defaults to http://HOST:PORT. */
   PUBLIC_URL: z.string().url().optional(),
   SHARE_DEFAULT_DAYS: z.coerce.number().int().min(1).max(365).default(14),
+  /** Requests a minute that one share link answers, from all addresses together. */
+  SHARE_READS_PER_LINK: z.coerce.number().int().positive().default(120),
+  /** Requests a minute that one address may make to shared links, all links together. */
+  SHARE_READS_PER_ADDRESS: z.coerce.number().int().positive().default(240),
 });
 export type Config = z.infer<typeof ConfigSchema>;
 
