@@ -6,6 +6,8 @@ import path from 'node:path';
 import type { AppContext } from './context';
 import { AppError, errorHandler } from './errors';
 import { requireSession } from './middleware/auth';
+import { retryAfterHeader } from './middleware/requestLimits';
+import { sameOriginForSessions } from './middleware/sameOrigin';
 import { accountLinkRoutes } from './routes/accountLinks';
 import { adminMailRoutes } from './routes/adminMail';
 import { annotationRoutes } from './routes/annotations';
@@ -48,6 +50,7 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   app.use(cookieParser());
 
   const api = express.Router();
+  api.use(sameOriginForSessions(ctx));
   api.use(healthRoutes(ctx));
   api.use(authRoutes(ctx));
   api.use(sharedRoutes(ctx));
@@ -71,6 +74,6 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
     app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
     app.get('/{*splat}', (_req, res) => res.sendFile(path.join(clientDir, 'index.html')));
   }
-  app.use(errorHandler);
+  app.use(retryAfterHeader, errorHandler);
   return app;
 }

@@ -18,8 +18,13 @@ export const ConfigSchema = z.object({
   ADMIN_EMAIL: z.string().email().optional(),
   ADMIN_PASSWORD: z.string().min(8, 'must be at least 8 characters').optional(),
   ADMIN_NAME: z.string().default('Administrator'),
+  /** Failed sign-ins allowed from one address per LOGIN_WINDOW_MINUTES; then 429 until the window ends. */
   LOGIN_MAX_FAILURES: z.coerce.number().int().positive().default(10),
   LOGIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+  /** Failed sign-ins of one account (from anywhere) before each further attempt waits 1, 2, 4 … seconds. */
+  LOGIN_ACCOUNT_FREE_FAILURES: z.coerce.number().int().min(0).default(5),
+  /** The longest wait between sign-in attempts of one account: a delay, never a lock-out. */
+  LOGIN_ACCOUNT_MAX_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
   UPLOAD_LIMIT_BYTES: z.coerce.number().int().positive().default(1024 ** 3),
   /** Serve the built client from dist/client. Off for API-only tests and for `npm run dev`. */
   SERVE_CLIENT: bool.default(true),
@@ -48,6 +53,10 @@ export const ConfigSchema = z.object({
   /** Address people reach the app at, for links in mail. Defaults to http://HOST:PORT. */
   PUBLIC_URL: z.string().url().optional(),
   SHARE_DEFAULT_DAYS: z.coerce.number().int().min(1).max(365).default(14),
+  /** Requests a minute that one share link answers, from all addresses together. */
+  SHARE_READS_PER_LINK: z.coerce.number().int().positive().default(120),
+  /** Requests a minute that one address may make to shared links, all links together. */
+  SHARE_READS_PER_ADDRESS: z.coerce.number().int().positive().default(240),
 });
 export type Config = z.infer<typeof ConfigSchema>;
 

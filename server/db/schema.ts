@@ -223,3 +223,40 @@ export const mailMessages = mysqlTable('mail_messages', {
   raw: text('raw').notNull(),
   receivedAt: timestamp('received_at').notNull().defaultNow(),
 });
+
+/**
+ * A signed-in browser. The session cookie carries a random id (the JWT's jti) of which only the SHA-256
+ * is kept, so a session can be ended on the server before its token expires.
+ */
+export const sessions = mysqlTable(
+  'sessions',
+  {
+    id: id(),
+    userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    idHash: varchar('id_hash', { length: 64 }).notNull().unique(),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    /** Updated at most once a minute, so a busy page does not write on every request. */
+    lastSeenAt: timestamp('last_seen_at').notNull().defaultNow(),
+    expiresAt: timestamp('expires_at').notNull(),
+    revokedAt: timestamp('revoked_at'),
+    /** A short description of the browser ("Firefox on Linux"), for the list of one's own sessions. */
+    userAgent: varchar('user_agent', { length: 120 }).notNull().default(''),
+  },
+  (t) => [index('sessions_user').on(t.userId)],
+);
+
+/**
+ * Counters behind the rate limits (failed sign-ins per address and per account, reset requests,
+ * shared-link reads), in the database so that every server process sharing it sees the same counts.
+ * No index on the times: the sweep of spent rows is rare, and every hit would have to update it.
+ */
+export const rateCounters = mysqlTable('rate_counters', {
+  /** What is counted and for whom, e.g. `login-ip:192.0.2.7` or `login-account:<sha256 of the e-mail>`. */
+  counterKey: varchar('counter_key', { length: 120 }).primaryKey(),
+  hits: int('hits', { unsigned: true }).notNull().default(0),
+  // An explicit default: on a server with explicit_defaults_for_timestamp off, the first NOT NULL
+  // timestamp of a table would otherwise be set to the current time by every UPDATE.
+  windowEndsAt: timestamp('window_ends_at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  /** For spaced attempts (one account's sign-ins): the next attempt is answered only from this time on. */
+  nextAllowedAt: timestamp('next_allowed_at', { fsp: 3 }),
+});

@@ -1,29 +1,32 @@
 import type { RequestHandler } from 'express';
 import type { Role, User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
-import { findUserById } from '../db/userRepository';
 import { AppError, forbidden } from '../errors';
-import { SESSION_COOKIE, verifySession } from '../services/sessionTokens';
+import { resolveSession } from '../services/sessionService';
+import { SESSION_COOKIE } from '../services/sessionTokens';
 
 declare module 'express-serve-static-core' {
   interface Request {
     user?: User;
+    /** The sessions row behind the cookie, for sign-out and "sign out other sessions". */
+    sessionId?: number;
   }
 }
 
 const noSession = () => new AppError(401, 'unauthenticated', 'Sign in to continue');
 
 /**
- * Resolves the session cookie to a user on every request. The user is read from the database each
- * time, so a deactivation or role change takes effect at once, not when the token expires.
+ * Resolves the session cookie to a user on every request. The session and the user are read from the
+ * database each time, so a sign-out elsewhere, a deactivation or a role change takes effect at once,
+ * not when the token expires.
  */
 export function requireSession(ctx: AppContext): RequestHandler {
   return async (req, _res, next) => {
     const token = req.cookies?.[SESSION_COOKIE];
-    const userId = typeof token === 'string' ? await verifySession(ctx.sessionKey, token) : null;
-    const user = userId ? await findUserById(ctx.db, userId) : null;
-    if (!user || !user.active) return next(noSession());
-    req.user = { id: user.id, email: user.email, name: user.name, role: user.role };
+    const session = typeof token === 'string' ? await resolveSession(ctx, token) : null;
+    if (!session) return next(noSession());
+    req.user = session.user;
+    req.sessionId = session.sessionId;
     next();
   };
 }
@@ -41,4 +44,10 @@ export function allow(...roles: Role[]): RequestHandler {
 export function currentUser(req: { user?: User }): User {
   if (!req.user) throw noSession();
   return req.user;
+}
+
+/** The session of the signed-in user; only for handlers behind requireSession. */
+export function currentSessionId(req: { sessionId?: number }): number {
+  if (req.sessionId === undefined) throw noSession();
+  return req.sessionId;
 }

@@ -25,6 +25,6 @@ export function projectRoutes(ctx: AppContext, onQueued: () => void): Router {
       res.status(202).json({ added });
     })
     .patch('/projects/:id', allow('admin', 'engineer'), async (req, res) => {
-      res.json({ project: await changeProject(ctx, IdParam.parse(req.params).id, UpdateProjectRequest.parse(req.body)) });
+      res.json({ project: await changeProject(ctx, currentUser(req), IdParam.parse(req.params).id, UpdateProjectRequest.parse(req.body)) });
     });
 }

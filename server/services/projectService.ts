@@ -1,7 +1,8 @@
 import type { CreateProjectRequest, Project, UpdateProjectRequest } from '../../shared/schemas/project';
+import type { User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
 import { findDefaultProjectId, findProject, insertProject, listProjects, updateProject } from '../db/projectRepository';
-import { notFound } from '../errors';
+import { forbidden, notFound } from '../errors';
 
 export const projectsFor = (ctx: AppContext, archived: 'true' | 'false' | 'all') => listProjects(ctx.db, archived);
 
@@ -16,8 +17,10 @@ export async function createProject(ctx: AppContext, userId: number, req: Create
   return getProject(ctx, id);
 }
 
-export async function changeProject(ctx: AppContext, id: number, req: UpdateProjectRequest): Promise<Project> {
-  await getProject(ctx, id);
+/** Renames, describes, archives or restores a project: whoever created it, or an admin. */
+export async function changeProject(ctx: AppContext, user: User, id: number, req: UpdateProjectRequest): Promise<Project> {
+  const project = await getProject(ctx, id);
+  if (user.role !== 'admin' && project.createdBy !== user.id) throw forbidden('Only whoever created this project or an admin may change it');
   await updateProject(ctx.db, id, req);
   return getProject(ctx, id);
 }

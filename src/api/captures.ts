@@ -1,5 +1,5 @@
 import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, SamplesResponse, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
-import { api, ApiError, toError } from './http';
+import { api, ApiError, clientHeaders, toError } from './http';
 
 const query = (q: Record<string, string | number | undefined>) =>
   Object.entries(q)
@@ -22,6 +22,7 @@ export function uploadCapture(file: File, fields: { projectId?: number; name?: s
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', '/api/captures');
+    for (const [name, value] of Object.entries(clientHeaders)) xhr.setRequestHeader(name, value);
     xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded / e.total);
     xhr.onerror = () => reject(new ApiError(0, 'network', 'The upload did not reach the server'));
     xhr.onload = async () => {

@@ -21,7 +21,11 @@ export interface SpanFigures {
  * Figures of a selected span, computed at once in the browser by the same engine the server uses, on
  * the span's own samples.
  */
-export function useSpanFigures(fetchSamples?: (captureId: number, q: { channel: number; fromS: number; toS: number; points: number }) => Promise<SamplesResponse>) {
+export function useSpanFigures(
+  fetchSamples?: (captureId: number, q: { channel: number; fromS: number; toS: number; points: number }) => Promise<SamplesResponse>,
+  /** Largest span this fetcher answers sample by sample (a share link answers fewer than a session). */
+  maxSamples = MAX_SPAN_SAMPLES,
+) {
   const fetch = fetchSamples ?? getSamples;
   const span = ref<SpanFigures | null>(null);
   const busy = ref(false);
@@ -35,15 +39,15 @@ export function useSpanFigures(fetchSamples?: (captureId: number, q: { channel: 
       span.value = null;
       return;
     }
-    if (count > MAX_SPAN_SAMPLES) {
-      error.value = `The span holds ${count.toLocaleString()} samples; select at most ${MAX_SPAN_SAMPLES.toLocaleString()} for figures in the browser.`;
+    if (count > maxSamples) {
+      error.value = `The span holds ${count.toLocaleString()} samples; select at most ${maxSamples.toLocaleString()} for figures in the browser.`;
       return;
     }
     busy.value = true;
     try {
       const channels: ChannelAnalysis[] = [];
       for (const ch of capture.channels) {
-        const s = await fetch(capture.id, { channel: ch.index, fromS, toS, points: MAX_SPAN_SAMPLES });
+        const s = await fetch(capture.id, { channel: ch.index, fromS, toS, points: maxSamples });
         const x = Float64Array.from(s.values ?? [], (v) => (v === null ? NaN : v));
         const valid = x.filter((v) => !Number.isNaN(v));
         channels.push(analyzeChannel(valid.length === x.length ? x : valid, rate, { t0: s.t0S }));
