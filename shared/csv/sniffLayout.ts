@@ -3,6 +3,7 @@ import { CsvError } from './CsvError';
 import { cellValue, cleanCell } from './numberCells';
 import { intervalFromPreamble, parsePreambleLine, unitFromPreamble, type PreambleEntry } from './preamble';
 import { splitLine, type Delimiter } from './splitLine';
+import { leadingMark, unwrap } from './textScan';
 
 /** How a capture file is laid out, found from its first lines. */
 export interface CaptureLayout {
@@ -99,7 +100,7 @@ function headerCells(line: string, delimiter: Delimiter, trailing: boolean): str
   if (delimiter === 'whitespace') {
     // "CH1 (V)" is one title even when spaces separate the columns.
     cells = cells.reduce<string[]>((out, c) => {
-      if (/^[([{]/.test(c) && out.length > 0) out[out.length - 1] += ` ${c}`;
+      if (c !== '' && '([{'.includes(c[0]) && out.length > 0) out[out.length - 1] += ` ${c}`;
       else out.push(c);
       return out;
     }, []);
@@ -126,6 +127,8 @@ function risesSteadily(lines: string[], start: number, run: Run, column: number)
   return { steady, integers: values.every((v) => Number.isInteger(v)) && step === 1 };
 }
 
+const COMMENT_MARKS = ['#', '%', '//'];
+
 /**
  * Finds delimiter, decimal mark, preamble, header (with units in the titles or on a row of their own),
  * time column and data start from the first lines of a file.
@@ -148,7 +151,7 @@ export function sniffLayout(lines: string[], firstLine = 1): CaptureLayout {
   const above: number[] = [];
   for (let i = run.start - 1; i >= 0; i--) if (!isBlank(lines[i])) above.push(i);
   const textRow = (i: number | undefined) => {
-    if (i === undefined || /^\s*(#|%|\/\/)/.test(lines[i])) return null;
+    if (i === undefined || leadingMark(lines[i], COMMENT_MARKS)) return null;
     const cells = headerCells(lines[i], run.delimiter, run.trailing);
     return cells.length === run.fields && cells.some((c) => cellValue(c, run.decimal) === undefined) ? cells : null;
   };
@@ -173,7 +176,7 @@ export function sniffLayout(lines: string[], firstLine = 1): CaptureLayout {
   const units = unitsIdx !== null ? headerCells(lines[unitsIdx], run.delimiter, run.trailing) : null;
   const columns: ColumnHeader[] = Array.from({ length: run.fields }, (_, i) => {
     const parsed = names ? parseColumnHeader(names[i]) : { name: '', unit: '' };
-    const unit = units?.[i] ? normaliseUnit(units[i].replace(/^[([](.*)[)\]]$/, '$1')) : parsed.unit;
+    const unit = units?.[i] ? normaliseUnit(unwrap(units[i], '([', ')]')) : parsed.unit;
     return { name: parsed.name, unit };
   });
 
