@@ -144,6 +144,9 @@ export class CaptureReader {
     const timeCol = layout.timeColumn ?? -1;
     const cols = this.columns;
     const values = this.rowValues.length === k ? this.rowValues : (this.rowValues = new Float64Array(k));
+    // The first delimiter after an unfinished search: lines that end before it have none, and are not
+    // searched again (else each blank line of a chunk would scan to the next delimiter, quadratic).
+    let nextDelimiter = -1;
     let pos = 0;
     for (;;) {
       const nl = text.indexOf('\n', pos);
@@ -152,10 +155,13 @@ export class CaptureReader {
       let e = lineEnd;
       if (trailing && e > pos && text.charCodeAt(e - 1) === d.charCodeAt(0)) e--;
       let p = pos;
-      let ok = e > pos;
+      let ok = e > pos && nextDelimiter <= e;
       for (let c = 0; ok && c < k; c++) {
         let ce = c === k - 1 ? e : text.indexOf(d, p);
-        if (ce < 0 || ce > e) ce = -1;
+        if (ce < 0 || ce > e) {
+          nextDelimiter = ce < 0 ? text.length : ce;
+          ce = -1;
+        }
         if (ce <= p) {
           ok = false;
           break;
