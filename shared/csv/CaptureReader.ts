@@ -1,4 +1,5 @@
 import { CsvError } from './CsvError';
+import { excerpt } from './excerpt';
 import { GrowableColumn } from './GrowableColumn';
 import { cellValue } from './numberCells';
 import { sniffLayout, type CaptureLayout } from './sniffLayout';
@@ -232,7 +233,7 @@ export class CaptureReader {
     if (v - v !== 0 || (v === 0 && raw.trim() === '') || (this.decimalCode === 44 && raw.includes('.')) || raw.charCodeAt(1) === 120) {
       const parsed = cellValue(raw, layout.decimal);
       if (parsed === undefined) {
-        throw new CsvError(`"${raw.trim().slice(0, 40)}" in column ${c + 1} (${layout.columns[c].name}) is not a number.`, this.line);
+        throw new CsvError(`"${excerpt(raw.trim())}" in column ${c + 1} (${excerpt(layout.columns[c].name)}) is not a number.`, this.line);
       }
       v = parsed;
     }
@@ -247,8 +248,9 @@ export class CaptureReader {
   }
 
   private countError(found: number, expected: number): CsvError {
-    const names = (this.layout as CaptureLayout).columns.map((c) => c.name).join(', ');
-    return new CsvError(`Expected ${expected} values (${names}) but found ${found}.`, this.line);
+    // Each title shortened, and the list too: 66 titles of 1,024 characters would not fit a message.
+    const names = (this.layout as CaptureLayout).columns.map((c) => excerpt(c.name)).join(', ');
+    return new CsvError(`Expected ${expected} values (${excerpt(names, 200)}) but found ${found}.`, this.line);
   }
 
   private result(): CaptureData {
