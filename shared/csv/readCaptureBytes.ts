@@ -1,15 +1,29 @@
 import { CaptureReader, type CaptureData } from './CaptureReader';
 import { detectEncoding } from './detectEncoding';
+import type { ReadLimits } from './readLimits';
 
 /** Bytes examined to tell the encoding and to refuse binary files. */
 export const ENCODING_PROBE_BYTES = 64 * 1024;
 
-/** Reads a capture from its bytes, given as one buffer or as chunks in order (the worker streams them). */
-export function readCaptureBytes(chunks: Iterable<Uint8Array>, options: { sampleRateHint?: number | null; totalBytes?: number } = {}): CaptureData & { encoding: string; bom: boolean } {
+/** What readCaptureBytes is told besides the bytes. */
+export interface ReadCaptureOptions {
+  /** Samples per second, for a file that has neither a time column nor an interval in its preamble. */
+  sampleRateHint?: number | null;
+  /** Size of the whole file in bytes, to size the columns once. */
+  totalBytes?: number;
+  /** Limits on the size of what is read; DEFAULT_READ_LIMITS where not given. */
+  limits?: Partial<ReadLimits>;
+}
+
+/**
+ * Reads a capture from its bytes, given as one buffer or as chunks in order (the worker streams them).
+ * Throws a CsvError naming the line; `too_large` when the file goes over one of the limits.
+ */
+export function readCaptureBytes(chunks: Iterable<Uint8Array>, options: ReadCaptureOptions = {}): CaptureData & { encoding: string; bom: boolean } {
   let decoder: TextDecoder | null = null;
   let bom = false;
   let encoding = '';
-  const reader = new CaptureReader({ sampleRateHint: options.sampleRateHint, expectedChars: options.totalBytes });
+  const reader = new CaptureReader({ sampleRateHint: options.sampleRateHint, expectedChars: options.totalBytes, limits: options.limits });
   for (const chunk of chunks) {
     let bytes = chunk;
     if (!decoder) {
