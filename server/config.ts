@@ -41,7 +41,7 @@ export const ConfigSchema = z.object({
   INGEST_TIME_FLOOR_SECONDS: z.coerce.number().positive().default(60),
   /** Time added to the floor per MiB of the file (1 s/MiB is 30–70 times what reading takes here). */
   INGEST_SECONDS_PER_MB: z.coerce.number().min(0).default(1),
-  /** Memory one capture may take while processed; bounds rows × channels (16 bytes per sample in flight). */
+  /** Memory one capture may take while processed; bounds rows × channels (40 bytes per sample in the worst layout). */
   INGEST_MEMORY_MB: z.coerce.number().int().min(16).default(3072),
   /** A job whose worker stopped heartbeating this long ago is taken up again. */
   JOB_STALE_SECONDS: z.coerce.number().positive().default(60),

@@ -1,6 +1,6 @@
 import { closeSync, openSync, readSync } from 'node:fs';
 import { analyzeValidSpan, findAnomalies, type AnomalySuggestion } from '../../shared/analysis';
-import { CsvError } from '../../shared/csv';
+import { CsvError, type ReadLimits } from '../../shared/csv';
 import { readCaptureBytes } from '../../shared/csv/readCaptureBytes';
 import type { ChannelAnalysis } from '../../shared/schemas/analysis';
 import type { DetectedFormat } from '../../shared/schemas/capture';
@@ -11,7 +11,7 @@ export interface IngestRequest {
   sizeBytes: number;
   sampleRateHint: number | null;
   /** Bounds on what the reader accepts (rows × channels from the server's memory setting). */
-  limits?: { maxSamples?: number };
+  limits?: Partial<ReadLimits>;
 }
 
 export interface IngestedChannel {
@@ -70,7 +70,7 @@ export interface ParsedFile {
 /** Reads one capture file into channels of samples. CPU-bound: runs in a worker thread. */
 export function parseFile(req: IngestRequest): ParsedFile {
   const t0 = performance.now();
-  const data = readCaptureBytes(fileChunks(req.file), { sampleRateHint: req.sampleRateHint, totalBytes: req.sizeBytes });
+  const data = readCaptureBytes(fileChunks(req.file), { sampleRateHint: req.sampleRateHint, totalBytes: req.sizeBytes, limits: req.limits });
   if (process.env.CRESTLINE_TRACE) console.log(`  reading ${(performance.now() - t0).toFixed(0)} ms`);
   const layout = data.layout;
   return {
