@@ -1,7 +1,8 @@
 import { CsvError } from './CsvError';
 import { excerpt } from './excerpt';
 import { GrowableColumn } from './GrowableColumn';
-import { HeadWindow } from './HeadWindow';
+import { readByteNumber, type ByteNumber } from './byteNumber';
+import { HeadWindow, type Head } from './HeadWindow';
 import { cellTooLong, dataLineTooLong, tooManySamples } from './limitErrors';
 import { cellValue } from './numberCells';
 import { resolveReadLimits, type ReadLimits } from './readLimits';
@@ -30,6 +31,10 @@ export interface CaptureData {
 }
 
 const HEAD_LINES = 400;
+/** 10^0 … 10^15, exact doubles. */
+const POW10 = Array.from({ length: 16 }, (_, i) => Number(`1e${i}`));
+/** Bytes decoded at a time while the head window fills. */
+const HEAD_SLICE_BYTES = 64 * 1024;
 
 /** What a CaptureReader is told besides the text. */
 export interface CaptureReaderOptions {
@@ -39,6 +44,11 @@ export interface CaptureReaderOptions {
   expectedChars?: number;
   /** Limits on the size of what is read; DEFAULT_READ_LIMITS where not given. */
   limits?: Partial<ReadLimits>;
+  /**
+   * For `pushBytes`: the text encoding of the bytes, which must keep ASCII as single bytes (UTF-8 or
+   * Windows-1252; transcode UTF-16 first). Used for the head and for the rare lines read with care.
+   */
+  encoding?: 'utf-8' | 'windows-1252';
 }
 
 /**
@@ -68,10 +78,16 @@ export class CaptureReader {
   private rowCount = 0;
   private rowValues = new Float64Array(0);
   private decimalCode = 46;
+  /** Byte mode: the head's bytes until the layout is known, then the start of an unfinished line. */
+  private headBytes: Uint8Array[] = [];
+  private byteCarry: Uint8Array = new Uint8Array(0);
+  private readonly byteText: TextDecoder;
+  private readonly number: ByteNumber = { value: 0, end: 0 };
 
   constructor(private readonly options: CaptureReaderOptions = {}) {
     this.limits = resolveReadLimits(options.limits);
     this.window = new HeadWindow(this.limits.maxHeadBytes, HEAD_LINES);
+    this.byteText = new TextDecoder(options.encoding ?? 'utf-8');
   }
 
   /** Feeds the next piece of the decoded file. */
@@ -80,15 +96,189 @@ export class CaptureReader {
     else if (this.window.add(text)) this.startBody(false);
   }
 
+  /**
+   * Feeds the next bytes of the file (after any byte-order mark), in the encoding given to the
+   * constructor. The numeric body is read from the bytes themselves: no string per cell or per line.
+   */
+  pushBytes(bytes: Uint8Array): void {
+    this.byteMode = true;
+    if (this.layout) this.consumeBytes(bytes, false);
+    else {
+      this.headBytes.push(bytes);
+      // Only as much is decoded as the head window takes, in slices: never a whole 4 MB chunk.
+      for (let at = 0; at < bytes.length; at += HEAD_SLICE_BYTES) {
+        if (this.window.add(this.byteText.decode(bytes.subarray(at, at + HEAD_SLICE_BYTES), { stream: true }))) return this.startBodyFromBytes(false);
+      }
+    }
+  }
+
   /** Ends the input and returns the capture, or throws a CsvError naming the line. */
   finish(): CaptureData {
-    if (!this.layout) this.startBody(true);
-    this.consume('', true);
+    if (this.byteMode) {
+      if (!this.layout) {
+        this.window.add(this.byteText.decode());
+        this.startBodyFromBytes(true);
+      }
+      this.consumeBytes(new Uint8Array(0), true);
+    } else {
+      if (!this.layout) this.startBody(true);
+      this.consume('', true);
+    }
     return this.result();
+  }
+
+  private byteMode = false;
+
+  /** Sniffs the layout from the head's text, then reads its data rows again from the bytes. */
+  private startBodyFromBytes(complete: boolean): void {
+    const head = this.window.take(complete);
+    this.setLayout(head);
+    const all = concatBytes(this.headBytes);
+    this.headBytes = [];
+    const lineBreak = head.lineBreak === '\r' ? 13 : 10;
+    let pos = 0;
+    for (let n = 0; n < this.line; n++) {
+      const at = all.indexOf(lineBreak, pos);
+      if (at < 0) {
+        pos = all.length;
+        break;
+      }
+      pos = at + 1;
+    }
+    this.consumeBytes(all.subarray(pos), complete);
+  }
+
+  private consumeBytes(chunk: Uint8Array, final: boolean): void {
+    let bytes = chunk;
+    if (this.byteCarry.length) {
+      // Finish the carried line on its own, so that the chunk itself is never copied.
+      const lineBreak = this.lineBreak === '\r' ? 13 : 10;
+      const nl = chunk.indexOf(lineBreak);
+      if (nl < 0) bytes = concatBytes([this.byteCarry, chunk]);
+      else {
+        const joined = concatBytes([this.byteCarry, chunk.subarray(0, nl + 1)]);
+        this.byteCarry = new Uint8Array(0);
+        this.byteRows(joined);
+        bytes = chunk.subarray(nl + 1);
+      }
+    }
+    let start = this.byteRows(bytes);
+    if (final && start < bytes.length) {
+      this.line++;
+      const text = this.byteText.decode(bytes.subarray(start));
+      this.row(text, 0, text.length);
+      start = bytes.length;
+    }
+    // A copy: the tail of a 4 MB chunk must not keep the whole chunk alive.
+    this.byteCarry = bytes.slice(start);
+    if (this.byteCarry.length > this.limits.maxLineChars + 1) throw dataLineTooLong(this.line + 1, null, this.limits.maxLineChars);
+  }
+
+  /**
+   * The hot loop of byte mode: every complete line in `bytes`, numbers parsed in place by
+   * readByteNumber (correctly rounded). A line it is unsure of (quotes, markers, text, a blank cell, a
+   * wrong count, a line or cell over its limit) is decoded and read by `row`, which names the line in
+   * its error. Returns where the unfinished last line starts.
+   */
+  private byteRows(bytes: Uint8Array): number {
+    const layout = this.layout as CaptureLayout;
+    const lineBreak = this.lineBreak === '\r' ? 13 : 10;
+    const ws = layout.delimiter === 'whitespace';
+    const d = ws ? 32 : layout.delimiter.charCodeAt(0);
+    const k = layout.fieldCount;
+    const trailing = layout.trailingDelimiter;
+    const timeCol = layout.timeColumn ?? -1;
+    const cols = this.columns;
+    const values = this.rowValues.length === k ? this.rowValues : (this.rowValues = new Float64Array(k));
+    const maxLine = this.limits.maxLineChars;
+    const decimal = this.decimalCode;
+    const num = this.number;
+    let pos = 0;
+    for (;;) {
+      const nl = bytes.indexOf(lineBreak, pos);
+      if (nl < 0) return pos;
+      const lineEnd = lineBreak === 10 && nl > pos && bytes[nl - 1] === 13 ? nl - 1 : nl;
+      let ok = lineEnd > pos && lineEnd - pos <= maxLine;
+      let p = pos;
+      for (let c = 0; ok && c < k; c++) {
+        while (p < lineEnd && (bytes[p] === 32 || bytes[p] === 9)) p++;
+        // The common shape, inline: [-]digits[.digits] with at most 15 digits, exactly s / 10^k (the
+        // exact fast path of readByteNumber); anything else goes to readByteNumber itself. Inlining
+        // took the 27 MB file from 100–120 to 165–205 MB/s of CPU time on this (loaded) machine.
+        let i = p;
+        let b = bytes[i];
+        const negative = b === 45;
+        if (negative) b = bytes[++i];
+        let significand = 0;
+        let fraction = 0;
+        let digits = 0;
+        while (b >= 48 && b <= 57 && digits < 15) {
+          significand = significand * 10 + (b - 48);
+          digits++;
+          b = bytes[++i];
+        }
+        if (b === decimal) {
+          b = bytes[++i];
+          while (b >= 48 && b <= 57 && digits < 15) {
+            significand = significand * 10 + (b - 48);
+            fraction++;
+            digits++;
+            b = bytes[++i];
+          }
+        }
+        let v: number;
+        if (digits > 0 && !(b >= 48 && b <= 57) && b !== 101 && b !== 69 && b !== decimal) {
+          const magnitude = fraction === 0 ? significand : significand / POW10[fraction];
+          v = negative ? -magnitude : magnitude;
+          num.end = i;
+        } else if (readByteNumber(bytes, p, lineEnd, decimal, num)) v = num.value;
+        else {
+          ok = false;
+          break;
+        }
+        if (v - v !== 0 || (c === timeCol && cols[c].length > 0 && v < cols[c].last())) ok = false;
+        values[c] = v;
+        let q = num.end;
+        while (q < lineEnd && (bytes[q] === 32 || bytes[q] === 9)) q++;
+        if (c < k - 1) {
+          if (ws) ok = q > num.end;
+          else if (bytes[q] === d) q++;
+          else ok = false;
+        } else {
+          if (trailing && !ws && bytes[q] === d) q++;
+          while (q < lineEnd && (bytes[q] === 32 || bytes[q] === 9)) q++;
+          ok = ok && q === lineEnd;
+        }
+        p = q;
+      }
+      this.line++;
+      if (ok) {
+        if (this.rowCount >= this.maxRows) throw tooManySamples(this.line, this.limits.maxSamples);
+        for (let c = 0; c < k; c++) cols[c].push(values[c]);
+        this.rowLines.push(this.line);
+        this.rowCount++;
+      } else {
+        const text = this.byteText.decode(bytes.subarray(pos, lineEnd));
+        this.row(text, 0, text.length);
+      }
+      pos = nl + 1;
+    }
   }
 
   private startBody(complete: boolean): void {
     const head = this.window.take(complete);
+    const lines = this.setLayout(head);
+    // Re-read the data rows of the head with the same code as the rest of the body.
+    const body = lines.slice(this.line).join('\n') + (lines.length > this.line ? '\n' : '');
+    const savedBreak = this.lineBreak;
+    this.lineBreak = '\n';
+    this.consume(body, false);
+    this.lineBreak = savedBreak;
+    this.consume(head.rest, complete);
+  }
+
+  /** Sniffs the layout from the head and sizes the columns; leaves `line` at the last line before the data. Returns the head's lines. */
+  private setLayout(head: Head): string[] {
     const lines = head.lines;
     this.lineBreak = head.lineBreak;
     this.lineEnding = head.lineEnding;
@@ -103,15 +293,8 @@ export class CaptureReader {
     this.rowLines = new GrowableColumn(capacity, this.maxRows);
     this.invalid = new Array(this.layout.fieldCount).fill(0);
     this.firstInvalid = new Array(this.layout.fieldCount).fill(null);
-    // Re-read the data rows of the head with the same code as the rest of the body.
-    const skip = this.layout.dataStartLine - 1;
-    this.line = skip;
-    const body = lines.slice(skip).join('\n') + (lines.length > skip ? '\n' : '');
-    const savedBreak = this.lineBreak;
-    this.lineBreak = '\n';
-    this.consume(body, false);
-    this.lineBreak = savedBreak;
-    this.consume(head.rest, complete);
+    this.line = this.layout.dataStartLine - 1;
+    return lines;
   }
 
   private consume(chunk: string, final: boolean): void {
@@ -312,4 +495,15 @@ export class CaptureReader {
       })),
     };
   }
+}
+
+function concatBytes(parts: Uint8Array[]): Uint8Array {
+  if (parts.length === 1) return parts[0];
+  const out = new Uint8Array(parts.reduce((n, p) => n + p.length, 0));
+  let at = 0;
+  for (const p of parts) {
+    out.set(p, at);
+    at += p.length;
+  }
+  return out;
 }

@@ -20,22 +20,25 @@ export interface ReadCaptureOptions {
  * Throws a CsvError naming the line; `too_large` when the file goes over one of the limits.
  */
 export function readCaptureBytes(chunks: Iterable<Uint8Array>, options: ReadCaptureOptions = {}): CaptureData & { encoding: string; bom: boolean } {
-  let decoder: TextDecoder | null = null;
+  let reader: CaptureReader | null = null;
+  // UTF-16 is transcoded to UTF-8, so that one byte-level reader serves every encoding.
+  let transcode: { decoder: TextDecoder; encoder: TextEncoder } | null = null;
   let bom = false;
   let encoding = '';
-  const reader = new CaptureReader({ sampleRateHint: options.sampleRateHint, expectedChars: options.totalBytes, limits: options.limits });
   for (const chunk of chunks) {
     let bytes = chunk;
-    if (!decoder) {
+    if (!reader) {
       const guess = detectEncoding(bytes.subarray(0, ENCODING_PROBE_BYTES));
-      decoder = new TextDecoder(guess.encoding, { ignoreBOM: true });
       bom = guess.bomLength > 0;
       encoding = guess.encoding;
       bytes = bytes.subarray(guess.bomLength);
+      const ascii = guess.encoding === 'utf-8' || guess.encoding === 'windows-1252';
+      if (!ascii) transcode = { decoder: new TextDecoder(guess.encoding, { ignoreBOM: true }), encoder: new TextEncoder() };
+      reader = new CaptureReader({ sampleRateHint: options.sampleRateHint, expectedChars: options.totalBytes, limits: options.limits, encoding: ascii ? (guess.encoding as 'utf-8' | 'windows-1252') : 'utf-8' });
     }
-    reader.push(decoder.decode(bytes, { stream: true }));
+    reader.pushBytes(transcode ? transcode.encoder.encode(transcode.decoder.decode(bytes, { stream: true })) : bytes);
   }
-  if (!decoder) detectEncoding(new Uint8Array(0));
-  reader.push(decoder!.decode());
-  return { ...reader.finish(), encoding, bom };
+  if (!reader) detectEncoding(new Uint8Array(0));
+  if (transcode) reader!.pushBytes(transcode.encoder.encode(transcode.decoder.decode()));
+  return { ...reader!.finish(), encoding, bom };
 }
