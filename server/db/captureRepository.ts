@@ -77,14 +77,18 @@ export async function findCaptureSummary(db: Db, id: number): Promise<CaptureSum
   return row ? toSummary(row) : null;
 }
 
+/** A capture with its channels: the capture row (with its summary) in one query, the channels in another. */
 export async function findCaptureDetail(db: Db, id: number): Promise<CaptureDetail | null> {
-  const summary = await findCaptureSummary(db, id);
-  if (!summary) return null;
-  const [row] = await db.select().from(captures).where(eq(captures.id, id));
+  const [row] = await db
+    .select({ ...summaryColumns, t0: captures.t0, sha256: captures.sha256, detected: captures.detected, metadata: captures.metadata, engineVersion: captures.engineVersion, readyAt: captures.readyAt })
+    .from(captures)
+    .leftJoin(users, eq(users.id, captures.uploadedBy))
+    .where(eq(captures.id, id));
+  if (!row) return null;
   const chans = await db.select().from(channels).where(eq(channels.captureId, id)).orderBy(asc(channels.idx));
   const parse = <T>(v: unknown): T => (typeof v === 'string' ? JSON.parse(v) : v) as T;
   return {
-    ...summary,
+    ...toSummary(row),
     t0: row.t0,
     sha256: row.sha256,
     channels: chans.map((c): CaptureChannel => ({ index: c.idx, name: c.name, unit: c.unit, invalidCount: c.invalidCount })),

@@ -12,7 +12,8 @@ import { AppError, notFound } from '../errors';
 import { allow, currentUser } from '../middleware/auth';
 import { acceptUpload, captureAnalysis, captureDetail, captureList, deleteCapture, provideSampleRate, reanalyseOutdated, updateCapture } from '../services/captureService';
 import { originalStream } from '../services/originalFiles';
-import { sampleWindow } from '../services/sampleWindowService';
+import { sampleWindowData } from '../services/sampleWindowService';
+import { sendSamples } from './sendSamples';
 
 const formatBytes = (n: number) => {
   const units = ['bytes', 'KiB', 'MiB', 'GiB', 'TiB'];
@@ -73,7 +74,7 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
       res.json(await captureAnalysis(ctx, IdParam.parse(req.params).id));
     })
     .get('/captures/:id/samples', async (req, res) => {
-      res.json(await sampleWindow(ctx, IdParam.parse(req.params).id, SamplesQuery.parse(req.query)));
+      sendSamples(req, res, await sampleWindowData(ctx, IdParam.parse(req.params).id, SamplesQuery.parse(req.query)));
     })
     .get('/captures/:id/original', async (req, res) => {
       const row = await findCaptureRow(ctx.db, IdParam.parse(req.params).id);

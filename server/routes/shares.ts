@@ -4,6 +4,7 @@ import { CreateShareRequest } from '../../shared/schemas/share';
 import { IdParam } from '../../shared/schemas/user';
 import { z } from 'zod';
 import type { AppContext } from '../context';
+import { sendSamples } from './sendSamples';
 import { AppError } from '../errors';
 import { allow, currentUser } from '../middleware/auth';
 import { clientAddress, limitRequests } from '../middleware/requestLimits';
@@ -65,7 +66,7 @@ export function sharedRoutes(ctx: AppContext): Router {
     })
     .get('/shared/:token/captures/:captureId/samples', async (req, res) => {
       const { token, captureId } = TokenCaptureParams.parse(req.params);
-      res.json(await sharedSamples(ctx, token, captureId, SamplesQuery.parse(req.query)));
+      sendSamples(req, res, await sharedSamples(ctx, token, captureId, SamplesQuery.parse(req.query)));
     })
     .all(['/shared/:token', '/shared/:token/{*rest}'], () => {
       throw new AppError(405, 'read_only', 'A shared link is read-only');

@@ -1,5 +1,5 @@
 import { closeSync, openSync, readSync } from 'node:fs';
-import { analyzeValidSpan, findAnomalies, type AnomalySuggestion } from '../../shared/analysis';
+import { analyzeValidSpan, findAnomalies, findClipping, type AnomalySuggestion } from '../../shared/analysis';
 import { CsvError, type ReadLimits } from '../../shared/csv';
 import { readCaptureBytes } from '../../shared/csv/readCaptureBytes';
 import type { ChannelAnalysis } from '../../shared/schemas/analysis';
@@ -106,14 +106,22 @@ export interface AnalyseRequest {
 export function analyseChannel(req: AnalyseRequest): IngestedChannel {
   const t0 = performance.now();
   const c = req.channel;
-  const result = analyzeValidSpan(c.samples, req.sampleRate, { t0: req.t0 });
+  // One clipping search serves the analysis warnings and the anomaly finder (about 10 ms per 1 M samples).
+  let min = Infinity;
+  let max = -Infinity;
+  for (const v of c.samples) {
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  const clipping = findClipping(c.samples, 0, c.samples.length, min, max);
+  const result = analyzeValidSpan(c.samples, req.sampleRate, { t0: req.t0, clipping });
   if (!result.ok) throw new CsvError(`Channel ${c.name}: ${result.reason}`, c.firstInvalidLine ?? undefined);
   const out = {
     name: c.name,
     unit: c.unit,
     invalidCount: c.invalidCount,
     analysis: result.analysis,
-    suggestions: findAnomalies(c.samples, req.sampleRate, req.t0, result.analysis.frequency),
+    suggestions: findAnomalies(c.samples, req.sampleRate, req.t0, result.analysis.frequency, { clipping }),
     chunks: float32Chunks(c.samples),
     overviews: overviewPyramid(c.samples).map((l) => ({ bucketSize: l.bucketSize, data: Buffer.from(l.minMax.buffer) })),
   };
