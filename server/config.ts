@@ -41,6 +41,8 @@ export const ConfigSchema = z.object({
   INGEST_TIME_FLOOR_SECONDS: z.coerce.number().positive().default(60),
   /** Time added to the floor per MiB of the file (1 s/MiB is 30–70 times what reading takes here). */
   INGEST_SECONDS_PER_MB: z.coerce.number().min(0).default(1),
+  /** Most samples (over all channels) whose figures GET /captures/:id/figures computes in one request. */
+  SPAN_FIGURES_MAX_SAMPLES: z.coerce.number().int().min(1000).default(4_000_000),
   /** Memory one capture may take while processed; bounds rows × channels (40 bytes per sample in the worst layout). */
   INGEST_MEMORY_MB: z.coerce.number().int().min(16).default(3072),
   /** A job whose worker stopped heartbeating this long ago is taken up again. */

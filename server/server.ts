@@ -5,6 +5,7 @@ import type { AppContext } from './context';
 import { migrateDatabase, openDatabase } from './db/client';
 import { loadSessionKey } from './services/sessionSecret';
 import { CaptureProcessor } from './jobs/captureProcessor';
+import { IngestWorkerClient } from './workers/IngestWorkerClient';
 import { createMailer } from './mail/mailer';
 import { startMailSink } from './mail/mailSink';
 import { ensureBootstrapAdmin } from './services/userService';
@@ -29,6 +30,7 @@ export async function startServer(overrides: Partial<Record<keyof Config, string
     mailer: createMailer(config, sink?.port ?? null),
     publicUrl: '',
     sessionKey: await loadSessionKey(config.SESSION_SECRET, config.DATA_DIR),
+    spanWorkers: new IngestWorkerClient(1),
     pingDatabase: async () => {
       try {
         await database.pool.query('SELECT 1');
@@ -55,6 +57,7 @@ export async function startServer(overrides: Partial<Record<keyof Config, string
     url: `http://${config.HOST}:${port}`,
     stop: async () => {
       await processor.stop();
+      await ctx.spanWorkers.close();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
       await sink?.close();

@@ -14,6 +14,8 @@ import { acceptUpload, captureAnalysis, captureDetail, captureList, deleteCaptur
 import { originalStream } from '../services/originalFiles';
 import { sampleWindowData } from '../services/sampleWindowService';
 import { sendSamples } from './sendSamples';
+import { spanFigures } from '../services/spanFiguresService';
+import { SpanFiguresQuery } from '../../shared/schemas/spanFigures';
 
 const formatBytes = (n: number) => {
   const units = ['bytes', 'KiB', 'MiB', 'GiB', 'TiB'];
@@ -72,6 +74,9 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
     })
     .get('/captures/:id/analysis', async (req, res) => {
       res.json(await captureAnalysis(ctx, IdParam.parse(req.params).id));
+    })
+    .get('/captures/:id/figures', async (req, res) => {
+      res.json(await spanFigures(ctx, IdParam.parse(req.params).id, SpanFiguresQuery.parse(req.query)));
     })
     .get('/captures/:id/samples', async (req, res) => {
       sendSamples(req, res, await sampleWindowData(ctx, IdParam.parse(req.params).id, SamplesQuery.parse(req.query)));

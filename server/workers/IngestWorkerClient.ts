@@ -1,6 +1,7 @@
 import { ENGINE_VERSION } from '../../shared/analysis';
 import { Worker } from 'node:worker_threads';
-import type { AnalyseRequest, IngestedChannel, IngestRequest, IngestResult, ParsedFile } from './ingestTask';
+import type { ValidSpanResult } from '../../shared/analysis';
+import type { AnalyseRequest, IngestedChannel, IngestRequest, IngestResult, ParsedFile, SpanFiguresRequest } from './ingestTask';
 import type { IngestReply, IngestTask } from './ingestWorker';
 
 /** A capture the worker could not read or analyse: a user-facing message, with the file line when known. */
@@ -118,6 +119,11 @@ export class IngestWorkerClient {
     );
     const { sampleRate, sampleCount, t0, detected, metadata } = parsed;
     return { sampleRate, sampleCount, t0, detected, metadata, engineVersion: ENGINE_VERSION, channels };
+  }
+
+  /** The engine's figures over spans of stored samples, off the event loop, within `budgetMs`. */
+  spanFigures(request: SpanFiguresRequest, budgetMs: number): Promise<ValidSpanResult[]> {
+    return this.run<ValidSpanResult[]>({ kind: 'figures', request }, budgetMs, request.channels.map((c) => c.buffer as ArrayBuffer));
   }
 
   /** Terminates every worker; their unfinished tasks are rejected. The next task starts fresh ones. */

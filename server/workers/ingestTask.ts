@@ -1,5 +1,5 @@
 import { closeSync, openSync, readSync } from 'node:fs';
-import { analyzeValidSpan, findAnomalies, findClipping, type AnomalySuggestion } from '../../shared/analysis';
+import { analyzeValidSpan, findAnomalies, findClipping, type AnomalySuggestion, type ValidSpanResult } from '../../shared/analysis';
 import { CsvError, type ReadLimits } from '../../shared/csv';
 import { readCaptureBytes } from '../../shared/csv/readCaptureBytes';
 import type { ChannelAnalysis } from '../../shared/schemas/analysis';
@@ -127,4 +127,16 @@ export function analyseChannel(req: AnalyseRequest): IngestedChannel {
   };
   if (process.env.CRESTLINE_TRACE) console.log(`  channel ${c.name}: analysis and packing ${(performance.now() - t0).toFixed(0)} ms`);
   return out;
+}
+
+export interface SpanFiguresRequest {
+  /** One span per channel, as stored (Float32), in the channel's unit. */
+  channels: Float32Array[];
+  sampleRate: number;
+  t0: number;
+}
+
+/** The engine's figures of each channel over a span, under its valid-span rules (no splicing across gaps). */
+export function spanFigures(req: SpanFiguresRequest): ValidSpanResult[] {
+  return req.channels.map((samples) => analyzeValidSpan(Float64Array.from(samples), req.sampleRate, { t0: req.t0 }));
 }

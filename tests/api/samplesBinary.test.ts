@@ -1,3 +1,4 @@
+import type { Response } from 'superagent';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RunningServer } from '../../server/server';
 import { decodeSamplesBinary } from '../../shared/samples/samplesBinary';
@@ -17,8 +18,8 @@ beforeAll(async () => {
 });
 afterAll(() => app.stop());
 
-/** Collects a binary body as an ArrayBuffer. */
-const binary = (res: NodeJS.ReadableStream, done: (err: Error | null, body: ArrayBuffer) => void) => {
+/** Collects a binary body as an ArrayBuffer (superagent hands node's response stream to a parser). */
+const collect = (res: NodeJS.ReadableStream, done: (err: Error | null, body: ArrayBuffer) => void) => {
   const parts: Buffer[] = [];
   res.on('data', (c: Buffer) => parts.push(c));
   res.on('end', () => {
@@ -26,6 +27,7 @@ const binary = (res: NodeJS.ReadableStream, done: (err: Error | null, body: Arra
     done(null, all.buffer.slice(all.byteOffset, all.byteOffset + all.byteLength));
   });
 };
+const binary = collect as unknown as (res: Response, done: (err: Error | null, body: unknown) => void) => void;
 
 async function both(url: string) {
   const json = await agent.get(url);
