@@ -14,6 +14,7 @@ import { acceptUpload, captureAnalysis, captureDetail, captureList, deleteCaptur
 import { originalStream } from '../services/originalFiles';
 import { sampleWindowData } from '../services/sampleWindowService';
 import { sendSamples } from './sendSamples';
+import { hashingDiskStorage } from '../services/hashingStorage';
 import { spanFigures } from '../services/spanFiguresService';
 import { SpanFiguresQuery } from '../../shared/schemas/spanFigures';
 
@@ -31,7 +32,7 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
   const tmp = path.join(ctx.config.DATA_DIR, 'uploads');
   mkdirSync(tmp, { recursive: true });
   // multer streams the file to disk; it is never held in memory whole.
-  const upload = multer({ dest: tmp, limits: { fileSize: ctx.config.UPLOAD_LIMIT_BYTES, files: 1, fields: 10 } }).single('file');
+  const upload = multer({ storage: hashingDiskStorage(tmp), limits: { fileSize: ctx.config.UPLOAD_LIMIT_BYTES, files: 1, fields: 10 } }).single('file');
   const limit = formatBytes(ctx.config.UPLOAD_LIMIT_BYTES);
 
   return Router()

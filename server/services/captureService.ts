@@ -16,6 +16,8 @@ export interface UploadedFile {
   path: string;
   originalname: string;
   size: number;
+  /** Taken while the upload streamed in (hashingDiskStorage); computed here when absent. */
+  sha256?: string;
 }
 
 /**
@@ -34,7 +36,7 @@ export async function acceptUpload(
     const project = await findProject(ctx.db, projectId);
     if (!project) throw notFound('Project');
     if (project.archived) throw new AppError(409, 'project_archived', 'That project is archived; restore it before adding captures');
-    const sha256 = await sha256OfFile(file.path);
+    const sha256 = file.sha256 ?? (await sha256OfFile(file.path));
     const existing = await findCaptureBySha(ctx.db, projectId, sha256);
     if (existing) return { id: existing.id, status: existing.status, duplicate: true };
     const name = fields.name || file.originalname.replace(/\.[^.]+$/, '') || 'Capture';
