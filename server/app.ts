@@ -10,6 +10,7 @@ import { retryAfterHeader } from './middleware/requestLimits';
 import { sameOriginForSessions } from './middleware/sameOrigin';
 import { accountLinkRoutes } from './routes/accountLinks';
 import { adminMailRoutes } from './routes/adminMail';
+import { apiTokenRoutes } from './routes/apiTokens';
 import { annotationRoutes } from './routes/annotations';
 import { authRoutes } from './routes/auth';
 import { comparisonRoutes } from './routes/comparisons';
@@ -58,6 +59,7 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   // Everything below needs a signed-in user.
   api.use(requireSession(ctx));
   api.use(userRoutes(ctx));
+  api.use(apiTokenRoutes(ctx));
   const onQueued = hooks.onCaptureQueued ?? (() => undefined);
   api.use(projectRoutes(ctx, onQueued));
   api.use(captureRoutes(ctx, onQueued));
