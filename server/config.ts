@@ -59,6 +59,8 @@ export const ConfigSchema = z.object({
   SHARE_READS_PER_LINK: z.coerce.number().int().positive().default(120),
   /** Requests a minute that one address may make to shared links, all links together. */
   SHARE_READS_PER_ADDRESS: z.coerce.number().int().positive().default(240),
+  /** Requests a minute one API token may make (then 429 with Retry-After); every server process shares the count. */
+  TOKEN_REQUESTS_PER_MINUTE: z.coerce.number().int().positive().default(300),
 });
 export type Config = z.infer<typeof ConfigSchema>;
 

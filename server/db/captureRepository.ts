@@ -1,7 +1,9 @@
 import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
 import type { CaptureChannel, CaptureDetail, CaptureListQuery, CaptureSummary } from '../../shared/schemas/capture';
+import type { User } from '../../shared/schemas/user';
 import type { Db } from './client';
 import { captures, channels, users } from './schema';
+import { projectVisibleTo } from './visibilityRepository';
 
 const summaryColumns = {
   id: captures.id,
@@ -53,8 +55,11 @@ function toSummary(r: SummaryRow): CaptureSummary {
   };
 }
 
-export async function listCaptures(db: Db, q: CaptureListQuery): Promise<{ items: CaptureSummary[]; total: number }> {
+/** A page of the captures `seenBy` may see: those in projects hidden from them are left out, total included. */
+export async function listCaptures(db: Db, q: CaptureListQuery, seenBy: User): Promise<{ items: CaptureSummary[]; total: number }> {
   const where: SQL[] = [];
+  const visible = projectVisibleTo(seenBy, captures.projectId);
+  if (visible) where.push(visible);
   if (q.projectId) where.push(eq(captures.projectId, q.projectId));
   if (q.status) where.push(eq(captures.status, q.status));
   if (q.q) where.push(or(like(captures.name, `%${q.q}%`), like(captures.originalName, `%${q.q}%`)) as SQL);

@@ -29,6 +29,9 @@ const id = () => bigint('id', { mode: 'number', unsigned: true }).autoincrement(
 /** A foreign key to an id: unsigned bigint, never serial (which would mean AUTO_INCREMENT). */
 const ref = (name: string) => bigint(name, { mode: 'number', unsigned: true });
 
+export const projectVisibility = ['team', 'members'] as const;
+export const memberRoles = ['engineer', 'viewer'] as const;
+
 export const users = mysqlTable('users', {
   id: id(),
   email: varchar('email', { length: 254 }).notNull().unique(),
@@ -44,11 +47,29 @@ export const projects = mysqlTable('projects', {
   name: varchar('name', { length: 160 }).notNull(),
   description: text('description').notNull(),
   archived: boolean('archived').notNull().default(false),
+  /** 'team': every signed-in user sees it (by their role). 'members': only its members, its creator and admins. */
+  visibility: mysqlEnum('visibility', projectVisibility).notNull().default('team'),
   createdBy: ref('created_by').references(() => users.id),
   /** Set on the project that receives a user's uploads when none is named. */
   defaultFor: ref('default_for').unique().references(() => users.id),
   createdAt: timestamp('created_at').notNull().defaultNow(),
 });
+
+/**
+ * Who may see a members-only project, and with what role in it. The role never lifts anyone above
+ * their own role: a viewer stays a viewer whatever the project says.
+ */
+export const projectMembers = mysqlTable(
+  'project_members',
+  {
+    projectId: ref('project_id').notNull().references(() => projects.id, { onDelete: 'cascade' }),
+    userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    role: mysqlEnum('role', memberRoles).notNull(),
+    addedBy: ref('added_by').references(() => users.id),
+    addedAt: timestamp('added_at').notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.projectId, t.userId] }), index('project_members_user').on(t.userId)],
+);
 
 export const captureStatus = ['queued', 'processing', 'ready', 'failed'] as const;
 
@@ -260,3 +281,25 @@ export const rateCounters = mysqlTable('rate_counters', {
   /** For spaced attempts (one account's sign-ins): the next attempt is answered only from this time on. */
   nextAllowedAt: timestamp('next_allowed_at', { fsp: 3 }),
 });
+
+/**
+ * API tokens for scripts and test rigs (`Authorization: Bearer crl_…`). Only the SHA-256 of a token is
+ * kept; it is looked up by that hash, so comparing never runs over secret bytes one by one.
+ */
+export const apiTokens = mysqlTable(
+  'api_tokens',
+  {
+    id: id(),
+    userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 120 }).notNull(),
+    tokenHash: varchar('token_hash', { length: 64 }).notNull().unique(),
+    /** The token's last four characters, so its owner can tell tokens apart; 168 random bits stay unknown. */
+    hint: varchar('hint', { length: 8 }).notNull(),
+    readOnly: boolean('read_only').notNull().default(false),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    /** Updated at most once a minute, so a busy rig does not write on every request. */
+    lastUsedAt: timestamp('last_used_at'),
+    expiresAt: timestamp('expires_at').notNull(),
+  },
+  (t) => [index('api_tokens_user').on(t.userId)],
+);

@@ -28,6 +28,10 @@ const formatBytes = (n: number) => {
   return `${Number(n.toPrecision(3))} ${units[i]}`;
 };
 
+/**
+ * Routes under /captures/:id pass projectScopes first: a capture in a project hidden from the user
+ * answers 404, and allow() checks the user's role in the capture's project.
+ */
 export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
   const tmp = path.join(ctx.config.DATA_DIR, 'uploads');
   mkdirSync(tmp, { recursive: true });
@@ -56,7 +60,7 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
       }
     })
     .get('/captures', async (req, res) => {
-      res.json(await captureList(ctx, CaptureListQuery.parse(req.query)));
+      res.json(await captureList(ctx, currentUser(req), CaptureListQuery.parse(req.query)));
     })
     .get('/captures/:id', async (req, res) => {
       res.json(await captureDetail(ctx, IdParam.parse(req.params).id));

@@ -11,6 +11,7 @@ import { AppError, forbidden, notFound } from '../errors';
 import { enqueue } from '../jobs/jobQueue';
 import { keepOriginal, removeCaptureFiles, sha256OfFile } from './originalFiles';
 import { defaultProjectId } from './projectService';
+import { requireRoleIn, visibleProject } from './visibility';
 
 export interface UploadedFile {
   path: string;
@@ -33,6 +34,8 @@ export async function acceptUpload(
 ): Promise<UploadResponse> {
   try {
     const projectId = fields.projectId ?? (await defaultProjectId(ctx, user.id, user.name));
+    // The project is named in the form, not the path, so projectScopes has not seen it.
+    requireRoleIn(await visibleProject(ctx, user, projectId), 'admin', 'engineer');
     const project = await findProject(ctx.db, projectId);
     if (!project) throw notFound('Project');
     if (project.archived) throw new AppError(409, 'project_archived', 'That project is archived; restore it before adding captures');
@@ -64,8 +67,8 @@ export async function acceptUpload(
   }
 }
 
-export async function captureList(ctx: AppContext, q: CaptureListQuery): Promise<CaptureList> {
-  const { items, total } = await listCaptures(ctx.db, q);
+export async function captureList(ctx: AppContext, user: User, q: CaptureListQuery): Promise<CaptureList> {
+  const { items, total } = await listCaptures(ctx.db, q, user);
   return { items, total, page: q.page, pageSize: q.pageSize };
 }
 
