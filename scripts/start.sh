@@ -40,6 +40,8 @@ db() { setsid -w scripts/db.sh "$@" 9>&-; }
 # job, even when it was left running by a start that was killed.
 stop_db() {
   trap '' INT TERM HUP
+  # Nothing may cut this short, not even an echo to a terminal that was closed.
+  set +e
   [ -f "$DATA_DIR/dev/mariadb.pid" ] || return 0
   echo "Stopping MariaDB..."
   db down dev || echo "MariaDB did not stop; its pid is in $DATA_DIR/dev/mariadb.pid" >&2

@@ -5,6 +5,9 @@ import { StartupError } from './startupError';
 /** A stop that takes longer (a stuck query, a huge capture mid-analysis) ends the process anyway; the job queue takes the capture up again. */
 const STOP_LIMIT_MS = 30_000;
 
+// Once the terminal is closed, writing to it fails (EIO); that must not end a server that is stopping.
+for (const stream of [process.stdout, process.stderr]) stream.on('error', () => undefined);
+
 let running: RunningServer;
 try {
   running = await startServer();
