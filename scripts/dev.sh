@@ -23,6 +23,6 @@ stop() {
 trap stop EXIT
 DATABASE_URL=$(setsid -w scripts/db.sh up dev "${DB_PORT:-3406}" crestline DB_PORT 9>&-)
 export DATABASE_URL SEED_DEMO=1 SERVE_CLIENT=0
-node_modules/.bin/tsx watch server/index.ts &
+node_modules/.bin/tsx watch server/index.ts 9>&- &
 api=$!
 npx vite

@@ -81,9 +81,10 @@ already_running() {
 
 # Makes this script the one that runs Crestline from DATA_DIR, or ends it with exit 1 and the pid and
 # address of the one that does, before anything (packages, MariaDB) is touched. The lock is flock(1)
-# on fd 9, held until this shell and the server it starts (which inherits fd 9) have both exited: the
-# kernel drops it with them, however they end, so a killed start never leaves a stale lock behind.
-# MariaDB must not inherit fd 9 (a database left running would keep the folder locked): run db.sh with 9>&-.
+# on fd 9, which the kernel drops when this shell ends, however it ends, so a killed start never
+# leaves a stale lock behind. Long-lived children must not inherit fd 9 (run them with 9>&-): MariaDB
+# left running, or a helper process of the server (tsx's esbuild) still exiting, would keep the
+# folder locked. The server holds DATA_DIR/server.lock instead, which live_server checks below.
 take_data_dir() {
   local lock="$DATA_DIR/start.lock" url=$1
   exec 9>>"$lock"

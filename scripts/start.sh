@@ -58,11 +58,11 @@ client_is_current() {
 }
 if [ "${SKIP_BUILD:-0}" != 1 ] && ! client_is_current; then
   echo "Building the client..."
-  npx vite build --logLevel warn
+  npx vite build --logLevel warn 9>&-
 fi
 
 # node itself, not npx or the tsx wrapper, so that signals reach the server and its status comes back.
-node --import tsx server/index.ts &
+node --import tsx server/index.ts 9>&- &
 server=$!
 # A trapped signal ends `wait` early while the server is still stopping: wait again until it is gone,
 # then collect its status (bash keeps it for a later `wait`).
