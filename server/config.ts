@@ -30,6 +30,13 @@ export const ConfigSchema = z.object({
   SERVE_CLIENT: bool.default(true),
   /** Run the capture-processing worker in this process. */
   RUN_WORKER: bool.default(true),
+  /** Serve HTTP from this process; 0 makes a worker-only process (with RUN_WORKER=1) for a second machine. */
+  RUN_HTTP: bool.default(true),
+  /**
+   * Folder of the kept originals, which every process of one Crestline must reach: DATA_DIR when
+   * unset; a shared mount when processes run on several machines.
+   */
+  FILES_DIR: z.string().optional(),
   SEED_DEMO: bool.default(false),
   /** Password hashing cost (bcrypt). 12 in production; tests may lower it for speed. */
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),

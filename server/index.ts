@@ -52,7 +52,9 @@ if (config.SEED_DEMO) {
     }
   }
 }
-if (!stopping) {
+if (!stopping && !config.RUN_HTTP) {
+  console.log(`\n  Crestline worker is running (no HTTP): it processes captures from the shared queue. Ctrl-C stops it.\n`);
+} else if (!stopping) {
   console.log(`\n  Crestline is ready: ${running.url}`);
   if (config.SEED_DEMO) {
     console.log(`  Demo sign-in: ${DEMO_USERS[1].email} / ${DEMO_PASSWORD}`);

@@ -80,7 +80,7 @@ export async function startServer(overrides: Partial<Record<keyof Config, string
     teardown.push(() => database.close());
     await migrateDatabase(database.db);
     let sink = null;
-    if (!config.SMTP_URL) {
+    if (!config.SMTP_URL && config.RUN_HTTP) {
       sink = await startMailSink(database.db, config.SMTP_SINK_PORT).catch((err: unknown) => {
         throw listenError(err, config.SMTP_SINK_PORT, '127.0.0.1', 'SMTP_SINK_PORT');
       });
@@ -106,18 +106,21 @@ export async function startServer(overrides: Partial<Record<keyof Config, string
     await ensureBootstrapAdmin(ctx);
     const processor = new CaptureProcessor(ctx);
     const server = createServer(createApp(ctx, { onCaptureQueued: () => processor.nudge() }));
-    await listen(server, config.PORT, config.HOST).catch((err: unknown) => {
-      throw listenError(err, config.PORT, config.HOST, 'PORT');
-    });
-    teardown.push(() => closeHttp(server));
+    if (config.RUN_HTTP) {
+      await listen(server, config.PORT, config.HOST).catch((err: unknown) => {
+        throw listenError(err, config.PORT, config.HOST, 'PORT');
+      });
+      teardown.push(() => closeHttp(server));
+    }
     // The processor starts once the server listens, so a start that fails before has no job half-done.
     if (config.RUN_WORKER) processor.start();
     teardown.push(() => processor.stop());
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : config.PORT;
-    const url = `http://${config.HOST}:${port}`;
+    // A worker-only process has no address: it only takes jobs from the shared queue.
+    const url = config.RUN_HTTP ? `http://${config.HOST}:${port}` : '';
     ctx.publicUrl = (config.PUBLIC_URL ?? url).replace(/\/$/, '');
-    await lock.setUrl(url);
+    await lock.setUrl(url || 'a worker-only process (no HTTP)');
     let stopping: Promise<void> | null = null;
     return {
       ctx,
