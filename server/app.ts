@@ -12,6 +12,7 @@ import { annotationRoutes } from './routes/annotations';
 import { authRoutes } from './routes/auth';
 import { comparisonRoutes } from './routes/comparisons';
 import { captureRoutes } from './routes/captures';
+import { captureSetupRoutes } from './routes/captureSetup';
 import { healthRoutes } from './routes/health';
 import { projectRoutes } from './routes/projects';
 import { sharedRoutes, shareRoutes } from './routes/shares';
@@ -58,6 +59,7 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   const onQueued = hooks.onCaptureQueued ?? (() => undefined);
   api.use(projectRoutes(ctx, onQueued));
   api.use(captureRoutes(ctx, onQueued));
+  api.use(captureSetupRoutes(ctx, onQueued));
   api.use(annotationRoutes(ctx));
   api.use(comparisonRoutes(ctx));
   api.use(shareRoutes(ctx));

@@ -1,7 +1,8 @@
 import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
 import type { CaptureChannel, CaptureDetail, CaptureListQuery, CaptureSummary } from '../../shared/schemas/capture';
+import type { PowerQuality } from '../../shared/schemas/powerQuality';
 import type { Db } from './client';
-import { captures, channels, users } from './schema';
+import { captures, channels, jobs, users } from './schema';
 
 const summaryColumns = {
   id: captures.id,
@@ -83,6 +84,7 @@ export async function findCaptureDetail(db: Db, id: number): Promise<CaptureDeta
   const [row] = await db.select().from(captures).where(eq(captures.id, id));
   const chans = await db.select().from(channels).where(eq(channels.captureId, id)).orderBy(asc(channels.idx));
   const parse = <T>(v: unknown): T => (typeof v === 'string' ? JSON.parse(v) : v) as T;
+  const [pending] = await db.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.captureId, id), eq(jobs.kind, 'reanalyse'), sql`${jobs.status} IN ('queued', 'running')`)).limit(1);
   return {
     ...summary,
     t0: row.t0,
@@ -92,6 +94,10 @@ export async function findCaptureDetail(db: Db, id: number): Promise<CaptureDeta
     metadata: parse(row.metadata) ?? [],
     engineVersion: row.engineVersion,
     readyAt: row.readyAt ? row.readyAt.toISOString() : null,
+    channelSetup: parse(row.channelSetup) ?? [],
+    systemsSpec: parse(row.systems) ?? null,
+    declaredVoltage: row.declaredVoltage,
+    reanalysing: Boolean(pending),
   };
 }
 
@@ -107,6 +113,13 @@ export async function findCaptureBySha(db: Db, projectId: number, sha256: string
     .where(and(eq(captures.projectId, projectId), eq(captures.sha256, sha256), sql`${captures.status} <> 'failed'`))
     .limit(1);
   return row ?? null;
+}
+
+/** Three-phase systems and voltage events stored with the capture's last analysis. */
+export async function powerQualityOf(db: Db, id: number): Promise<PowerQuality> {
+  const [row] = await db.select({ pq: captures.powerQuality }).from(captures).where(eq(captures.id, id));
+  const pq = typeof row?.pq === 'string' ? (JSON.parse(row.pq) as PowerQuality) : row?.pq;
+  return pq ?? { systems: [], voltageEvents: [] };
 }
 
 export async function channelAnalyses(db: Db, id: number): Promise<unknown[]> {

@@ -8,6 +8,7 @@ const columns = {
   name: projects.name,
   description: projects.description,
   archived: projects.archived,
+  declaredVoltage: projects.declaredVoltage,
   createdBy: projects.createdBy,
   createdAt: projects.createdAt,
   captureCount: count(captures.id),
@@ -19,6 +20,7 @@ const toProject = (r: Row): Project => ({
   name: r.name as string,
   description: r.description as string,
   archived: Boolean(r.archived),
+  declaredVoltage: (r.declaredVoltage as number | null) ?? null,
   createdBy: (r.createdBy as number | null) ?? null,
   createdAt: r.createdAt.toISOString(),
   captureCount: Number(r.captureCount),
@@ -45,7 +47,7 @@ export async function insertProject(db: Db, p: { name: string; description: stri
   return id;
 }
 
-export async function updateProject(db: Db, id: number, patch: Partial<{ name: string; description: string; archived: boolean }>): Promise<void> {
+export async function updateProject(db: Db, id: number, patch: Partial<{ name: string; description: string; archived: boolean; declaredVoltage: number | null }>): Promise<void> {
   await db.update(projects).set(patch).where(eq(projects.id, id));
 }
 

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { SamplesQuery } from '../../shared/schemas/capture';
+import { TrendQuery } from '../../shared/schemas/powerQuality';
 import { CreateShareRequest } from '../../shared/schemas/share';
 import { IdParam } from '../../shared/schemas/user';
 import { z } from 'zod';
@@ -7,6 +8,7 @@ import type { AppContext } from '../context';
 import { AppError, notFound } from '../errors';
 import { allow, currentUser } from '../middleware/auth';
 import { sampleWindow } from '../services/sampleWindowService';
+import { channelTrend } from '../services/trendService';
 import { createShare, liveShares, revokeShare, sharedCaptureIds, sharedView } from '../services/shareService';
 
 /** Creating, listing and revoking links: signed-in engineers and admins. */
@@ -47,6 +49,11 @@ export function sharedRoutes(ctx: AppContext): Router {
       const { token, captureId } = TokenCaptureParams.parse(req.params);
       if (!(await sharedCaptureIds(ctx, token)).includes(captureId)) throw notFound('This shared capture');
       res.json(await sampleWindow(ctx, captureId, SamplesQuery.parse(req.query)));
+    })
+    .get('/shared/:token/captures/:captureId/trend', async (req, res) => {
+      const { token, captureId } = TokenCaptureParams.parse(req.params);
+      if (!(await sharedCaptureIds(ctx, token)).includes(captureId)) throw notFound('This shared capture');
+      res.json(await channelTrend(ctx, captureId, TrendQuery.parse(req.query)));
     })
     .all(['/shared/:token', '/shared/:token/{*rest}'], () => {
       throw new AppError(405, 'read_only', 'A shared link is read-only');

@@ -36,7 +36,7 @@ function rmsOf(count: number, f: (k: number) => number): number {
 }
 
 /** The fundamental as an RMS phasor: over whole cycles it falls exactly on DFT bin `cycles`. */
-function fundamentalPhasor(x: Samples, count: number, cycles: number): Phasor {
+export function fundamentalPhasor(x: Samples, count: number, cycles: number): Phasor {
   const { re, im } = dftBins(x, 0, count, [cycles / count]);
   return { re: (Math.SQRT2 * re[0]) / count, im: (Math.SQRT2 * im[0]) / count };
 }

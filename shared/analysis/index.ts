@@ -24,3 +24,5 @@ export { cycleTrend, thinTrend, type TrendKind, type TrendPoint } from './cycleT
 export { voltageEvents, IEC_61000_4_30_THRESHOLDS, EVENT_THRESHOLDS_SOURCE, type VoltageEvent, type EventThresholds } from './voltageEvents';
 export { suggestDeclaredVoltage, declaredForChannel, NOMINAL_VOLTAGES } from './declaredVoltage';
 export { polar, abs as phasorMagnitude, argDeg as phasorAngleDeg, type Phasor } from './phasor';
+export { threePhaseSystems, type NamedChannel } from './threePhaseSystems';
+export { channelVoltageEvents } from './channelVoltageEvents';

@@ -72,3 +72,28 @@ export const CreateProbePresetRequest = z
   })
   .strict();
 export type CreateProbePresetRequest = z.infer<typeof CreateProbePresetRequest>;
+
+/** A setup with the defaults filled in: scale 1, offset 0, not inverted. */
+export const completeSetup = (index: number, s: Partial<Omit<ChannelSetup, 'index'>>): ChannelSetup => ({
+  index,
+  ...(s.name !== undefined ? { name: s.name } : {}),
+  ...(s.unit !== undefined ? { unit: s.unit } : {}),
+  scale: s.scale ?? 1,
+  offset: s.offset ?? 0,
+  invert: s.invert ?? false,
+});
+
+/** The upload form field: JSON text of UploadChannelSetup, read into complete setups. */
+export const UploadChannelSetupField = z
+  .string()
+  .max(20_000)
+  .transform((text, ctx) => {
+    try {
+      return JSON.parse(text) as unknown;
+    } catch {
+      ctx.addIssue({ code: 'custom', message: 'channelSetup is not valid JSON' });
+      return z.NEVER;
+    }
+  })
+  .pipe(UploadChannelSetup)
+  .transform((list) => list.map(({ index, ...s }) => completeSetup(index, s)));

@@ -5,6 +5,8 @@ export const Project = z.object({
   name: z.string(),
   description: z.string(),
   archived: z.boolean(),
+  /** Declared supply voltage (V) for the project's captures, or null. */
+  declaredVoltage: z.number().nullable(),
   createdBy: z.number().int().nullable(),
   createdAt: z.string(),
   captureCount: z.number().int(),
@@ -18,7 +20,7 @@ export const CreateProjectRequest = z.object({
 export type CreateProjectRequest = z.infer<typeof CreateProjectRequest>;
 
 export const UpdateProjectRequest = z
-  .object({ name: z.string().trim().min(1).max(160).optional(), description: z.string().trim().max(2000).optional(), archived: z.boolean().optional() })
+  .object({ name: z.string().trim().min(1).max(160).optional(), description: z.string().trim().max(2000).optional(), archived: z.boolean().optional(), declaredVoltage: z.number().min(1).max(1_000_000).nullable().optional() })
   .refine((v) => Object.keys(v).length > 0, 'Nothing to change');
 export type UpdateProjectRequest = z.infer<typeof UpdateProjectRequest>;
 
