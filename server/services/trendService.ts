@@ -5,11 +5,14 @@ import { trendSource } from '../db/captureSetupRepository';
 import { AppError, notFound } from '../errors';
 import { readSamples } from './sampleWindowService';
 
+/** At most this many samples are read for one trend (80 MB of Float32): a longer record is asked for by spans. */
+export const MAX_TREND_SAMPLES = 20_000_000;
+
 /**
  * A channel's values from cycle to cycle (Urms(1/2), RMS per cycle or frequency per cycle) over a
  * span, from the stored samples, at most `points` values (thinned keeping each bucket's lowest and
- * highest, so a dip survives). The whole channel is read: the windows follow its zero crossings, which
- * a span cut at an arbitrary instant would not start on. Measured here: about 60 ms for 1 M samples.
+ * highest, so a dip survives). Only the span and one nominal cycle either side are read: the windows
+ * start on the zero crossings found there, which are the record's own.
  */
 export async function channelTrend(ctx: AppContext, captureId: number, q: TrendQuery): Promise<TrendResponse> {
   const src = await trendSource(ctx.db, captureId, q.channel);
@@ -19,9 +22,18 @@ export async function channelTrend(ctx: AppContext, captureId: number, q: TrendQ
   const unit = q.kind === 'frequencyCycle' ? 'Hz' : (src.unit ?? '');
   const frequency = src.frequency === null || src.frequency === 'null' ? null : Number(src.frequency);
   const n = src.sampleCount ?? 0;
+  const rate = src.sampleRate ?? 1;
+  const t0 = src.t0 ?? 0;
   if (!frequency || n < 2) return { channel: q.channel, kind: q.kind, unit, total: 0, points: [] };
-  const samples = await readSamples(ctx, captureId, q.channel, 0, n);
-  const all = cycleTrend(samples, src.sampleRate ?? 1, frequency, q.kind, src.t0 ?? 0);
+  const margin = Math.ceil(rate / frequency);
+  const first = q.fromS === undefined ? 0 : Math.max(0, Math.floor((q.fromS - t0) * rate) - margin);
+  const last = q.toS === undefined ? n : Math.min(n, Math.ceil((q.toS - t0) * rate) + margin + 1);
+  if (last - first > MAX_TREND_SAMPLES) {
+    throw new AppError(422, 'span_too_long', `A trend covers at most ${MAX_TREND_SAMPLES.toLocaleString('en')} samples; ask for a shorter span (fromS, toS)`);
+  }
+  if (last - first < 2) return { channel: q.channel, kind: q.kind, unit, total: 0, points: [] };
+  const samples = await readSamples(ctx, captureId, q.channel, first, last - first);
+  const all = cycleTrend(samples, rate, frequency, q.kind, t0 + first / rate);
   const span = all.filter((p) => (q.fromS === undefined || p.tS >= q.fromS) && (q.toS === undefined || p.tS <= q.toS));
   return { channel: q.channel, kind: q.kind, unit, total: span.length, points: thinTrend(span, q.points) };
 }

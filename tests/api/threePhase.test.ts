@@ -87,6 +87,11 @@ describe('GET /api/captures/:id/analysis: systems', () => {
     const f = (await viewer.get(`/api/captures/${id}/trend?channel=0&kind=frequencyCycle`)).body;
     expect(f.unit).toBe('Hz');
     f.points.forEach((p: { value: number }) => expect(p.value).toBeCloseTo(50, 1));
+    // A span is read with a cycle either side: its values are those of the whole record, within the span.
+    const zoomed = (await viewer.get(`/api/captures/${id}/trend?channel=0&fromS=0.15&toS=0.35`)).body;
+    expect(zoomed.points.every((p: { tS: number }) => p.tS >= 0.15 && p.tS <= 0.35)).toBe(true);
+    expect(zoomed.total).toBeGreaterThanOrEqual(19); // 0.2 s of half cycles 10 ms apart
+    expect(Math.min(...zoomed.points.map((p: { value: number }) => p.value))).toBeCloseTo(0.72 * 231, 0);
     expect((await viewer.get(`/api/captures/${id}/trend?channel=0&kind=nonsense`)).status).toBe(400);
     expect((await viewer.get(`/api/captures/${id}/trend?channel=9`)).status).toBe(404);
   });
