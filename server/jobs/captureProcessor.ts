@@ -1,11 +1,8 @@
 import { randomBytes } from 'node:crypto';
 import { hostname } from 'node:os';
 import { and, eq } from 'drizzle-orm';
-import type { ChannelSetup } from '../../shared/schemas/channelSetup';
-import type { SystemSpec } from '../../shared/schemas/threePhase';
 import type { AppContext } from '../context';
 import { findCaptureRow } from '../db/captureRepository';
-import { findProject } from '../db/projectRepository';
 import { isDatabaseAway } from '../errors';
 import { captures, jobs } from '../db/schema';
 import { compressOriginal, readableOriginal } from '../services/originalFiles';
@@ -13,6 +10,7 @@ import { IngestFailure, IngestWorkerClient } from '../workers/IngestWorkerClient
 import { maxSamples, taskBudgetMs } from './ingestLimits';
 import { claimJob, enqueue, heartbeat, MAX_ATTEMPTS, ownedBy, releaseJob, type ClaimedJob } from './jobQueue';
 import { unexpectedFailure } from './processingFailure';
+import { runSetupOf } from './runSetup';
 import { storeFailure, storeReady } from './storeOutcome';
 
 const POLL_MS = 500;
@@ -127,7 +125,7 @@ export class CaptureProcessor {
     try {
       const t0 = performance.now();
       readable = await readableOriginal(this.ctx, capture.id);
-      const setup = await this.setupOf(capture);
+      const setup = await runSetupOf(this.ctx.db, capture);
       const request = { file: readable.file, sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint, limits: { maxSamples: maxSamples(config) }, ...setup };
       const result = await slot.ingest(request, taskBudgetMs(config, capture.sizeBytes));
       const t1 = performance.now();
@@ -135,7 +133,7 @@ export class CaptureProcessor {
       await storeReady(db, job, this.workerId, result);
       // A setup changed while this run used the old one: its own request was folded into this job, so run again.
       const now = await findCaptureRow(db, capture.id);
-      if (now && JSON.stringify(await this.setupOf(now)) !== JSON.stringify(setup) && (await enqueue(db, capture.id, 'reanalyse'))) this.nudge();
+      if (now && JSON.stringify(await runSetupOf(this.ctx.db, now)) !== JSON.stringify(setup) && (await enqueue(db, capture.id, 'reanalyse'))) this.nudge();
       if (process.env.CRESTLINE_TRACE) console.log(`capture ${capture.id}: read and analysed in ${(t1 - t0).toFixed(0)} ms, stored in ${(performance.now() - t1).toFixed(0)} ms`);
       this.inBackground(compressOriginal(this.ctx, capture.id).catch((err) => console.error(`compressing the original of capture ${capture.id}:`, err)));
     } catch (err) {
@@ -153,14 +151,6 @@ export class CaptureProcessor {
       clearInterval(beat);
       await readable?.done();
     }
-  }
-
-  /** What a run applies besides the file: channel setups, stated three-phase sets, the declared voltage. */
-  private async setupOf(capture: NonNullable<Awaited<ReturnType<typeof findCaptureRow>>>) {
-    const parse = <T>(v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v) as T;
-    const projectVoltage = capture.declaredVoltage === null ? ((await findProject(this.ctx.db, capture.projectId))?.declaredVoltage ?? null) : null;
-    const declared = capture.declaredVoltage !== null ? { value: capture.declaredVoltage, from: 'capture' as const } : projectVoltage !== null ? { value: projectVoltage, from: 'project' as const } : null;
-    return { channelSetup: parse<ChannelSetup[]>(capture.channelSetup) ?? [], systems: parse<SystemSpec[] | null>(capture.systems) ?? null, declared };
   }
 
   private async giveBack(job: ClaimedJob): Promise<void> {

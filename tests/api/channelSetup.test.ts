@@ -6,7 +6,8 @@
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RunningServer } from '../../server/server';
-import { sineCsv, uploadText, waitSettled } from '../helpers/captures';
+import { sql } from 'drizzle-orm';
+import { longTwoChannelCsv, sineCsv, uploadText, waitSettled } from '../helpers/captures';
 import { resetDatabase, signedIn, startTestServer, userAgent } from '../helpers/testServer';
 
 type Agent = Awaited<ReturnType<typeof signedIn>>;
@@ -86,6 +87,31 @@ describe('PATCH /api/captures/:id/channels/:index', () => {
     expect(rms).toBeCloseTo(30, 4);
   });
 
+  it('a change made while a re-analysis is running with the old setup is applied by one more run after it', async () => {
+    // Long enough (300,000 rows) that the first re-analysis is still running when the second change comes.
+    const big = (await uploadText(eng, 'long.csv', longTwoChannelCsv(300_000), { projectId })).body.id;
+    await waitSettled(eng, big, 60_000);
+    expect((await eng.patch(`/api/captures/${big}/channels/1`).send({ scale: 2 })).status).toBe(202);
+    const until = Date.now() + 20_000;
+    for (;;) {
+      const [rows] = (await app.ctx.db.execute(sql`SELECT status FROM jobs WHERE capture_id = ${big} AND kind = 'reanalyse' ORDER BY id DESC LIMIT 1`)) as unknown as [{ status: string }[]];
+      if (rows[0]?.status === 'running') break;
+      if (Date.now() > until) throw new Error('the re-analysis never ran');
+      await new Promise((r) => setTimeout(r, 10));
+    }
+    expect((await eng.patch(`/api/captures/${big}/channels/1`).send({ scale: 3 })).status).toBe(202);
+    const done = Date.now() + 60_000;
+    let rms = 0;
+    while (Date.now() < done) {
+      const c = (await eng.get(`/api/captures/${big}`)).body;
+      rms = (await eng.get(`/api/captures/${big}/analysis`)).body.channels[1].rms;
+      if (!c.reanalysing && Math.abs(rms - 3 * 10 / Math.SQRT2) < 0.01) break;
+      await new Promise((r) => setTimeout(r, 100));
+    }
+    // 10 A peak in the file (tests/helpers/captures.ts), so 30 A peak, 30/√2 A RMS (standard calculus).
+    expect(rms).toBeCloseTo((3 * 10) / Math.SQRT2, 2);
+  }, 120_000);
+
   it('bad values are a 400 that names the field; a missing channel is a 404', async () => {
     const bad = async (body: unknown, field: string) => {
       const r = await eng.patch(`/api/captures/${id}/channels/0`).send(body as object);
@@ -113,6 +139,10 @@ describe('PATCH /api/captures/:id/channels/:index', () => {
     const view = (await supertest(app.server).get(`/api/shared/${share.token}`)).body;
     expect(view.captures[0].capture.channels[0].unit).toBe('A');
     expect(view.captures[0].analysis.channels[0].rms).toBeCloseTo(30, 3);
+    const trend = await supertest(app.server).get(`/api/shared/${share.token}/captures/${id}/trend?channel=0`);
+    expect(trend.body.unit).toBe('A');
+    trend.body.points.forEach((p: { value: number }) => expect(p.value).toBeCloseTo(30, 1));
+    expect((await supertest(app.server).get(`/api/shared/${share.token}/captures/${id + 1000}/trend?channel=0`)).status).toBe(404);
   });
 });
 
