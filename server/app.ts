@@ -16,6 +16,7 @@ import { annotationRoutes } from './routes/annotations';
 import { authRoutes } from './routes/auth';
 import { comparisonRoutes } from './routes/comparisons';
 import { captureRoutes } from './routes/captures';
+import { captureSetupRoutes } from './routes/captureSetup';
 import { healthRoutes } from './routes/health';
 import { projectMemberRoutes } from './routes/projectMembers';
 import { projectRoutes } from './routes/projects';
@@ -69,6 +70,7 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   api.use(projectRoutes(ctx, onQueued));
   api.use(projectMemberRoutes(ctx));
   api.use(captureRoutes(ctx, onQueued));
+  api.use(captureSetupRoutes(ctx, onQueued));
   api.use(annotationRoutes(ctx));
   api.use(comparisonRoutes(ctx));
   api.use(shareRoutes(ctx));

@@ -15,6 +15,7 @@ const columns = (askerId: number) => ({
   description: projects.description,
   archived: projects.archived,
   visibility: projects.visibility,
+  declaredVoltage: projects.declaredVoltage,
   createdBy: projects.createdBy,
   createdAt: projects.createdAt,
   captureCount: count(captures.id),
@@ -28,6 +29,7 @@ const toRow = (r: Row): ProjectRow => ({
   description: r.description as string,
   archived: Boolean(r.archived),
   visibility: r.visibility as ProjectVisibility,
+  declaredVoltage: (r.declaredVoltage as number | null) ?? null,
   createdBy: (r.createdBy as number | null) ?? null,
   createdAt: r.createdAt.toISOString(),
   captureCount: Number(r.captureCount),
@@ -57,7 +59,7 @@ export async function insertProject(db: Db, p: { name: string; description: stri
   return id;
 }
 
-export async function updateProject(db: Db, id: number, patch: Partial<{ name: string; description: string; archived: boolean; visibility: ProjectVisibility }>): Promise<void> {
+export async function updateProject(db: Db, id: number, patch: Partial<{ name: string; description: string; archived: boolean; visibility: ProjectVisibility; declaredVoltage: number | null }>): Promise<void> {
   await db.update(projects).set(patch).where(eq(projects.id, id));
 }
 

@@ -14,6 +14,9 @@ import {
   timestamp,
   varchar,
 } from 'drizzle-orm/mysql-core';
+import type { ChannelSetup } from '../../shared/schemas/channelSetup';
+import type { PowerQuality } from '../../shared/schemas/powerQuality';
+import type { SystemSpec } from '../../shared/schemas/threePhase';
 
 /** Binary sample data: Buffer in, Buffer out. */
 const longblob = customType<{ data: Buffer; driverData: Buffer }>({
@@ -49,6 +52,8 @@ export const projects = mysqlTable('projects', {
   archived: boolean('archived').notNull().default(false),
   /** 'team': every signed-in user sees it (by their role). 'members': only its members, its creator and admins. */
   visibility: mysqlEnum('visibility', projectVisibility).notNull().default('team'),
+  /** The declared supply voltage (V) for the project's captures, unless a capture has its own. */
+  declaredVoltage: double('declared_voltage'),
   createdBy: ref('created_by').references(() => users.id),
   /** Set on the project that receives a user's uploads when none is named. */
   defaultFor: ref('default_for').unique().references(() => users.id),
@@ -98,6 +103,14 @@ export const captures = mysqlTable(
     metadata: json('metadata'),
     tags: json('tags').$type<string[]>().notNull().default(sql`('[]')`),
     engineVersion: int('engine_version'),
+    /** How each channel is turned into engineering units; applied to the file's values at every (re-)analysis. */
+    channelSetup: json('channel_setup').$type<ChannelSetup[]>().notNull().default(sql`('[]')`),
+    /** Three-phase sets as a user stated them; null: found automatically. */
+    systems: json('systems').$type<SystemSpec[] | null>(),
+    /** The declared supply voltage (V) for dips and swells; null: the project's, else a suggestion. */
+    declaredVoltage: double('declared_voltage'),
+    /** Three-phase systems and voltage events of the last analysis. */
+    powerQuality: json('power_quality').$type<PowerQuality>(),
     createdAt: timestamp('created_at').notNull().defaultNow(),
     readyAt: timestamp('ready_at'),
   },
@@ -302,4 +315,21 @@ export const apiTokens = mysqlTable(
     expiresAt: timestamp('expires_at').notNull(),
   },
   (t) => [index('api_tokens_user').on(t.userId)],
+);
+
+/** A project's named probes and clamps, applied to a channel in one click (e.g. "clamp 100 mV/A → A"). */
+export const probePresets = mysqlTable(
+  'probe_presets',
+  {
+    id: id(),
+    projectId: ref('project_id').notNull().references(() => projects.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 80 }).notNull(),
+    unit: varchar('unit', { length: 8 }).notNull(),
+    scale: double('scale').notNull(),
+    offset: double('offset').notNull().default(0),
+    invert: boolean('invert').notNull().default(false),
+    createdBy: ref('created_by').references(() => users.id),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [index('probe_presets_project').on(t.projectId)],
 );

@@ -2,9 +2,10 @@ import { eq } from 'drizzle-orm';
 import { rm } from 'node:fs/promises';
 import { ENGINE_VERSION } from '../../shared/analysis';
 import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
+import type { ChannelSetup } from '../../shared/schemas/channelSetup';
 import type { User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
-import { channelAnalyses, findCaptureBySha, findCaptureDetail, findCaptureRow, listCaptures } from '../db/captureRepository';
+import { channelAnalyses, powerQualityOf, findCaptureBySha, findCaptureDetail, findCaptureRow, listCaptures } from '../db/captureRepository';
 import { findProject } from '../db/projectRepository';
 import { captures } from '../db/schema';
 import { AppError, forbidden, notFound } from '../errors';
@@ -30,7 +31,7 @@ export async function acceptUpload(
   ctx: AppContext,
   user: User,
   file: UploadedFile,
-  fields: { name?: string; projectId?: number; sampleRate?: number },
+  fields: { name?: string; projectId?: number; sampleRate?: number; channelSetup?: ChannelSetup[] },
 ): Promise<UploadResponse> {
   try {
     const projectId = fields.projectId ?? (await defaultProjectId(ctx, user.id, user.name));
@@ -48,7 +49,7 @@ export async function acceptUpload(
       const id = await ctx.db.transaction(async (tx) => {
         const [{ id }] = await tx
           .insert(captures)
-          .values({ projectId, name: name.slice(0, 200), uploadedBy: user.id, originalName: file.originalname.slice(0, 255), sha256, sizeBytes: file.size, sampleRateHint: fields.sampleRate ?? null })
+          .values({ projectId, name: name.slice(0, 200), uploadedBy: user.id, originalName: file.originalname.slice(0, 255), sha256, sizeBytes: file.size, sampleRateHint: fields.sampleRate ?? null, channelSetup: fields.channelSetup ?? [] })
           .$returningId();
         const relative = await keepOriginal(ctx, file.path, id);
         keptAs = id;
@@ -84,11 +85,12 @@ export async function captureAnalysis(ctx: AppContext, id: number): Promise<Anal
   if (row.status !== 'ready') {
     throw new AppError(409, 'not_ready', row.status === 'failed' ? `The capture failed: ${row.errorMessage}` : `The capture is ${row.status}; its analysis is not ready yet`);
   }
-  return { engineVersion: row.engineVersion ?? 0, channels: (await channelAnalyses(ctx.db, id)) as AnalysisResponse['channels'] };
+  const { systems, voltageEvents } = await powerQualityOf(ctx.db, id);
+  return { engineVersion: row.engineVersion ?? 0, channels: (await channelAnalyses(ctx.db, id)) as AnalysisResponse['channels'], systems, voltageEvents };
 }
 
 /** Only the uploader or an admin may change or delete a capture. */
-async function ownedCapture(ctx: AppContext, user: User, id: number) {
+export async function ownedCapture(ctx: AppContext, user: User, id: number) {
   const row = await findCaptureRow(ctx.db, id);
   if (!row) throw notFound('Capture');
   if (user.role !== 'admin' && row.uploadedBy !== user.id) throw forbidden('Only its uploader or an admin may change this capture');

@@ -9,8 +9,8 @@ import { roleInProject } from './projectRole';
 function asSeenBy(user: User, row: ProjectRow): Project | null {
   const yourRole = roleInProject(user, row);
   if (!yourRole) return null;
-  const { id, name, description, archived, visibility, createdBy, createdAt, captureCount } = row;
-  return { id, name, description, archived, visibility, createdBy, createdAt, captureCount, yourRole };
+  const { id, name, description, archived, visibility, declaredVoltage, createdBy, createdAt, captureCount } = row;
+  return { id, name, description, archived, visibility, declaredVoltage, createdBy, createdAt, captureCount, yourRole };
 }
 
 /** The projects `user` may see; members-only ones they are not in are left out without a word. */

@@ -113,12 +113,12 @@ export class IngestWorkerClient {
     const parsed = await this.run<ParsedFile>({ kind: 'parse', request }, budgetMs);
     const channels = await Promise.all(
       parsed.channels.map((channel) => {
-        const analyse: AnalyseRequest = { channel, sampleRate: parsed.sampleRate, t0: parsed.t0 };
+        const analyse: AnalyseRequest = { channel, sampleRate: parsed.sampleRate, t0: parsed.t0, declared: request.declared ?? null };
         return this.run<IngestedChannel>({ kind: 'analyse', request: analyse }, budgetMs, [channel.samples.buffer as ArrayBuffer]);
       }),
     );
-    const { sampleRate, sampleCount, t0, detected, metadata } = parsed;
-    return { sampleRate, sampleCount, t0, detected, metadata, engineVersion: ENGINE_VERSION, channels };
+    const { sampleRate, sampleCount, t0, detected, metadata, systems } = parsed;
+    return { sampleRate, sampleCount, t0, detected, metadata, engineVersion: ENGINE_VERSION, channels, systems };
   }
 
   /** The engine's figures over spans of stored samples, off the event loop, within `budgetMs`. */

@@ -3,7 +3,7 @@ import { risingZeroCrossings } from './frequency';
 import type { Samples } from './samples';
 
 export interface AnomalySuggestion {
-  kind: 'clipping' | 'spike' | 'dropout' | 'sag' | 'swell' | 'frequency';
+  kind: 'clipping' | 'spike' | 'dropout' | 'sag' | 'swell' | 'frequency' | 'dip' | 'interruption';
   startS: number;
   endS: number;
   severity: 'info' | 'warning' | 'fault';

@@ -13,6 +13,8 @@ export const Project = z.object({
   visibility: ProjectVisibility,
   /** What the asking user may do in this project: their own role, narrowed by a member role. */
   yourRole: Role,
+  /** Declared supply voltage (V) for the project's captures, or null. */
+  declaredVoltage: z.number().nullable(),
   createdBy: z.number().int().nullable(),
   createdAt: z.string(),
   captureCount: z.number().int(),
@@ -27,7 +29,7 @@ export const CreateProjectRequest = z.object({
 export type CreateProjectRequest = z.infer<typeof CreateProjectRequest>;
 
 export const UpdateProjectRequest = z
-  .object({ name: z.string().trim().min(1).max(160).optional(), description: z.string().trim().max(2000).optional(), archived: z.boolean().optional(), visibility: ProjectVisibility.optional() })
+  .object({ name: z.string().trim().min(1).max(160).optional(), description: z.string().trim().max(2000).optional(), archived: z.boolean().optional(), visibility: ProjectVisibility.optional(), declaredVoltage: z.number().min(1).max(1_000_000).nullable().optional() })
   .refine((v) => Object.keys(v).length > 0, 'Nothing to change');
 export type UpdateProjectRequest = z.infer<typeof UpdateProjectRequest>;
 
