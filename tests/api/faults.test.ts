@@ -73,7 +73,7 @@ describe('fault: the server process is killed mid-ingest', () => {
     expect(await channelCount(id)).toBe(2);
     second.child.kill('SIGTERM');
     await new Promise((r) => second.child.once('exit', r));
-  });
+  }, 120_000);
 });
 
 describe('fault: a worker thread dies', () => {
@@ -90,7 +90,7 @@ describe('fault: a worker thread dies', () => {
     expect((await waitSettled(eng, id, 60_000)).status).toBe('ready');
     expect(await jobOf(id)).toMatchObject({ status: 'done', attempts: 2 });
     expect(await channelCount(id)).toBe(2);
-  });
+  }, 120_000);
 });
 
 describe('fault: the database stops during an upload', () => {
@@ -118,5 +118,5 @@ describe('fault: the database stops during an upload', () => {
     const capture = await waitSettled(agent, retried.body.id);
     expect(capture.status).toBe('ready');
     expect((await agent.get('/api/captures')).body.total).toBe(1);
-  });
+  }, 120_000);
 });

@@ -70,7 +70,7 @@ describe('time budgets', () => {
     p.nudge();
     expect((await waitSettled(eng, next)).status).toBe('ready');
     await p.stop();
-  });
+  }, 120_000);
 
   it('while one large file is being read, a small upload is processed beside it', async () => {
     const p = processor({ INGEST_CONCURRENCY: 2 });
@@ -83,7 +83,7 @@ describe('time budgets', () => {
     expect((await eng.get(`/api/captures/${slow}`)).body.status).toBe('processing');
     expect((await waitSettled(eng, slow, 60_000)).status).toBe('ready');
     await p.stop();
-  });
+  }, 120_000);
 
   it('a stop interrupts a running file and gives its job back uncounted; the next start completes it once', async () => {
     const first = processor();
@@ -99,7 +99,7 @@ describe('time budgets', () => {
     expect(await jobOf(id)).toMatchObject({ status: 'done', attempts: 1, lockedBy: second.workerId });
     expect(await channelCount(id)).toBe(2);
     await second.stop();
-  });
+  }, 120_000);
 });
 
 describe('attempts and messages', () => {

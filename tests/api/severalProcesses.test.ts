@@ -67,5 +67,5 @@ describe('several processes on one database', () => {
     const analysis = await a.get(`/api/captures/${ids[3]}/analysis`);
     // a sine's RMS is its peak over √2 (standard calculus)
     expect(analysis.body.channels[0].acRms).toBeCloseTo(13 / Math.SQRT2, 6);
-  });
+  }, 120_000);
 });
