@@ -55,7 +55,10 @@ const big = () => Buffer.concat([bigRows, Buffer.from(`20.00000,${++variant},0\n
 
 describe('time budgets', () => {
   it('when a file runs past its time budget, its worker is stopped and the capture fails with "took longer than"', async () => {
-    const p = processor({ INGEST_TIME_FLOOR_SECONDS: 0.1, INGEST_SECONDS_PER_MB: 0 });
+    const config: Config = { ...app.ctx.config, INGEST_CONCURRENCY: 1, INGEST_TIME_FLOOR_SECONDS: 0.1, INGEST_SECONDS_PER_MB: 0 };
+    const p = new CaptureProcessor({ ...app.ctx, config });
+    running.push(p);
+    p.start();
     const id = (await uploadText(eng, 'slow.csv', big())).body.id;
     p.nudge();
     const c = await waitSettled(eng, id, 60_000);
@@ -65,7 +68,8 @@ describe('time budgets', () => {
     expect(await jobOf(id)).toMatchObject({ status: 'failed', attempts: 1 });
     expect(await channelCount(id)).toBe(0);
 
-    // The slot's next file gets a fresh worker and is processed as usual.
+    // The slot's next file, with an ordinary budget again, gets a fresh worker and is processed as usual.
+    config.INGEST_TIME_FLOOR_SECONDS = 60;
     const next = (await uploadText(eng, 'after.csv', sineCsv(10, 50, 5000, 0.2))).body.id;
     p.nudge();
     expect((await waitSettled(eng, next)).status).toBe('ready');
