@@ -13,6 +13,8 @@ import { authRoutes } from './routes/auth';
 import { comparisonRoutes } from './routes/comparisons';
 import { captureRoutes } from './routes/captures';
 import { healthRoutes } from './routes/health';
+import { meterProfileRoutes } from './routes/meterProfiles';
+import { meterSimulationRoutes } from './routes/meterSimulation';
 import { projectRoutes } from './routes/projects';
 import { sharedRoutes, shareRoutes } from './routes/shares';
 import { userRoutes } from './routes/users';
@@ -62,6 +64,8 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   api.use(comparisonRoutes(ctx));
   api.use(shareRoutes(ctx));
   api.use(adminMailRoutes(ctx));
+  api.use(meterProfileRoutes(ctx));
+  api.use(meterSimulationRoutes(ctx));
   api.use(() => {
     throw new AppError(404, 'not_found', 'No such API route');
   });

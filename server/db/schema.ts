@@ -14,6 +14,7 @@ import {
   timestamp,
   varchar,
 } from 'drizzle-orm/mysql-core';
+import type { FrontEndProfile } from '../../shared/schemas/meterSimulation';
 
 /** Binary sample data: Buffer in, Buffer out. */
 const longblob = customType<{ data: Buffer; driverData: Buffer }>({
@@ -223,3 +224,20 @@ export const mailMessages = mysqlTable('mail_messages', {
   raw: text('raw').notNull(),
   receivedAt: timestamp('received_at').notNull().defaultNow(),
 });
+
+/** A meter's front end saved for a project's team, or in one person's account. */
+export const meterProfiles = mysqlTable(
+  'meter_profiles',
+  {
+    id: id(),
+    name: varchar('name', { length: 120 }).notNull(),
+    scope: mysqlEnum('scope', ['project', 'account']).notNull(),
+    /** The project of a project profile; null for an account profile. */
+    projectId: ref('project_id').references(() => projects.id, { onDelete: 'cascade' }),
+    /** Its creator, who owns it when it is an account profile. */
+    createdBy: ref('created_by').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    profile: json('profile').$type<FrontEndProfile>().notNull(),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [index('meter_profiles_project').on(t.projectId), index('meter_profiles_creator').on(t.createdBy)],
+);

@@ -12,7 +12,7 @@ const finite = (v: number) => (Number.isNaN(v) ? null : v);
  * Samples [start, start+count) of a channel. Chunk k holds samples [k·CHUNK_SAMPLES, (k+1)·CHUNK_SAMPLES),
  * so the chunks needed follow by arithmetic, and only their needed bytes are read.
  */
-async function readSamples(ctx: AppContext, captureId: number, channel: number, start: number, count: number): Promise<Float32Array> {
+export async function readSamples(ctx: AppContext, captureId: number, channel: number, start: number, count: number): Promise<Float32Array> {
   const out = new Float32Array(count);
   const first = Math.floor(start / CHUNK_SAMPLES);
   const last = Math.floor((start + count - 1) / CHUNK_SAMPLES);

@@ -24,3 +24,4 @@ export { resolveFrontEnd, yourMeterProfileOf, type ResolvedFrontEnd } from './fr
 export { MAX_RUN_S, RUN_BUDGET_SAMPLES } from './frontEnd/planRun';
 export { simulateMeter, type SimulationOptions } from './frontEnd/simulateMeter';
 export { steadyStateOf, type SteadyState } from './frontEnd/steadyState';
+export { longestValidStretch, validStretchProblem, type ValidStretch } from './longestValidStretch';

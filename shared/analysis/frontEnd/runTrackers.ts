@@ -96,8 +96,8 @@ export class SettlingTracker {
       this.ring[slot] = buf[k];
       this.seen++;
       const centre = offset + k - (P - 1) / 2;
-      // Until a whole period has been seen the trend is undefined, and the reading is not settled.
-      if (this.seen < P || Math.abs(this.sum / P - this.final) > this.band) this.lastOutside = centre;
+      // Until a whole period has been seen, the mean of what has been.
+      if (Math.abs(this.sum / Math.min(this.seen, P) - this.final) > this.band) this.lastOutside = centre;
       // Re-add from the ring now and then: a running sum over millions of samples would drift.
       if (this.seen % (P * 4096) === 0) this.sum = this.ring.reduce((s, v) => s + v, 0);
     }
