@@ -38,6 +38,7 @@ export const FrontEndProfile = z.object({
 });
 export type FrontEndProfile = z.infer<typeof FrontEndProfile>;
 
+/** Body of POST /api/captures/:id/meter-simulation. */
 export const MeterSimulationRequest = z.object({
   channel: z.number().int().min(0),
   profile: FrontEndProfile,
@@ -51,15 +52,18 @@ export const MeterSimulationRequest = z.object({
 });
 export type MeterSimulationRequest = z.infer<typeof MeterSimulationRequest>;
 
+/** A value at a time, in seconds from the start of the run. */
 export const TimePoint = z.object({ tS: z.number(), value: z.number() });
 export type TimePoint = z.infer<typeof TimePoint>;
 
+/** One sentence on what to do with this meter on this waveform, and its kind. */
 export const MeterAdvice = z.object({
   kind: z.enum(['wait', 'unsteady', 'clipped', 'notSettled', 'noSignal']),
   sentence: z.string(),
 });
 export type MeterAdvice = z.infer<typeof MeterAdvice>;
 
+/** What the simulated meter does over time, and where it settles. */
 export const MeterSimulationResponse = z.object({
   /** The converter output (in reading units) against seconds since the start; min and max of each bucket, at most 2,000 points. */
   trace: z.array(TimePoint),

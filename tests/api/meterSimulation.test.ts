@@ -53,6 +53,9 @@ describe('a viewer simulates a meter on a ready capture', () => {
     // 0.2 s of record against ln(100)·0.3 s = 1.4 s to settle: not there yet.
     expect(r.settled.settlingTimeS).toBeNull();
     expect(r.advice.kind).toBe('notSettled');
+    // Four updates a second: the first comes at 0.25 s, after the record ends.
+    expect(r.display).toEqual([]);
+    expect(r.notes).toContain('The display first updates 0.25 s after connecting, after this span ends: loop it to see the display.');
   });
 
   it('looped until settled, the reading is within 1 % after ln(100)·τ, and the display settles on 230.0 V', async () => {

@@ -34,12 +34,14 @@ export class Rectifier implements Stage {
   }
 }
 
+/** The true RMS converter's squarer, x². */
 export class Squarer implements Stage {
   process(buf: Float64Array, n: number): void {
     for (let i = 0; i < n; i++) buf[i] *= buf[i];
   }
 }
 
+/** The true RMS converter's root, after its averaging. */
 export class SquareRoot implements Stage {
   process(buf: Float64Array, n: number): void {
     for (let i = 0; i < n; i++) buf[i] = Math.sqrt(buf[i]);

@@ -17,14 +17,14 @@ export interface RunResult {
  * keeping only the trace envelope, the display's samples and the settling time. A looped run stops once
  * the reading has stayed settled for a loop, two display updates and a quarter of its settling time.
  */
-export function runFrontEnd(fe: FrontEnd, plan: RunPlan, target: number, periodSamples: number | null, displayRateHz: number, stopWhenSettled: boolean): RunResult {
+export function runFrontEnd(fe: FrontEnd, plan: RunPlan, target: number, periodSamples: number | null, display: { rateHz: number; alreadyShowing: boolean }, stopWhenSettled: boolean): RunResult {
   const { source, sampleRateHz: fs, plannedSamples } = plan;
   const trace = new EnvelopeTrace(plannedSamples, TRACE_POINTS);
-  const display = new DisplaySampler(displayRateHz, fs);
+  const shown = new DisplaySampler(display.rateHz, fs, display.alreadyShowing);
   const settling = new SettlingTracker(target, periodSamples);
   const block = new Float64Array(Math.min(BLOCK, plannedSamples));
   const L = source.length;
-  const margin = (settledAtS: number) => Math.max(L / fs, 2 / displayRateHz, 0.25 * settledAtS);
+  const margin = (settledAtS: number) => Math.max(L / fs, 2 / display.rateHz, 0.25 * settledAtS);
   let done = 0;
   let pos = 0;
   while (done < plannedSamples) {
@@ -37,11 +37,11 @@ export function runFrontEnd(fe: FrontEnd, plan: RunPlan, target: number, periodS
     }
     fe.process(block, m);
     trace.push(block, m, done);
-    display.push(block, m, done);
+    shown.push(block, m, done);
     settling.push(block, m, done);
     done += m;
     const settledAt = settling.settlingTimeS(fs);
     if (stopWhenSettled && settledAt !== null && done / fs - settledAt >= margin(settledAt)) break;
   }
-  return { trace: trace.finish(fs), displaySamples: display.samples, settlingTimeS: settling.settlingTimeS(fs), simulatedSamples: done };
+  return { trace: trace.finish(fs), displaySamples: shown.samples, settlingTimeS: settling.settlingTimeS(fs), simulatedSamples: done };
 }

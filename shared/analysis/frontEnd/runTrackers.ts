@@ -52,12 +52,17 @@ export class EnvelopeTrace {
   }
 }
 
-/** The display's sample-and-hold: the converter output at t = k/rate, k = 1, 2, … */
+/**
+ * The display's sample-and-hold: the converter output at t = k/rate, k = 1, 2, … (from k = 0 when the
+ * meter was already reading before the run, so its display shows a value from the start).
+ */
 export class DisplaySampler {
   readonly samples: { tS: number; value: number }[] = [];
-  private k = 1;
+  private k: number;
 
-  constructor(private readonly rateHz: number, private readonly sampleRateHz: number) {}
+  constructor(private readonly rateHz: number, private readonly sampleRateHz: number, alreadyShowing = false) {
+    this.k = alreadyShowing ? 0 : 1;
+  }
 
   push(buf: Float64Array, n: number, offset: number): void {
     for (;;) {

@@ -67,13 +67,14 @@ export function simulateMeter(x: Samples, sampleRateHz: number, profile: FrontEn
   } else {
     fe.reset();
   }
-  const run = runFrontEnd(fe, plan, runTarget, f0 !== null ? plan.sampleRateHz / f0 : null, p.displayRateHz, repeat);
+  const run = runFrontEnd(fe, plan, runTarget, f0 !== null ? plan.sampleRateHz / f0 : null, { rateHz: p.displayRateHz, alreadyShowing: start === 'settled' }, repeat);
   const simulatedS = run.simulatedSamples / plan.sampleRateHz;
 
   if (repeat && win.cycles !== null && win.sampleCount < span.length) notes.push(`The loop repeats the span's ${win.cycles} whole cycles; its last partial cycle is left out so the loop has no seam.`);
   if (repeat && win.cycles === null) notes.push('The span has no steady fundamental, so the loop repeats it whole, seam included.');
   if (plan.decimation > 1) notes.push(`Simulated at ${Number((plan.sampleRateHz / 1000).toPrecision(3))} kS/s (1/${Number(plan.decimation.toPrecision(3))} of the capture's rate) to keep a ${Math.round(simulatedS)} s run affordable.`);
   if (p.crestFactorLimit !== null && p.rangeFullScale === null) notes.push("Give the range's full scale to model clipping at the crest-factor limit.");
+  if (run.displaySamples.length === 0) notes.push(`The display first updates ${Number((1 / p.displayRateHz).toPrecision(3))} s after connecting, after this span ends: loop it to see the display.`);
 
   const resolution = displayResolution(p, target.mean);
   return {

@@ -12,6 +12,7 @@ export interface StatefulStage extends Stage {
   settle(loop: Float64Array): void;
 }
 
+/** Whether a stage keeps state between blocks (and so must be settled or reset). */
 export const isStateful = (s: Stage): s is StatefulStage => 'settle' in s;
 
 /**
