@@ -58,7 +58,7 @@ export type TimePoint = z.infer<typeof TimePoint>;
 
 /** One sentence on what to do with this meter on this waveform, and its kind. */
 export const MeterAdvice = z.object({
-  kind: z.enum(['wait', 'unsteady', 'clipped', 'notSettled', 'noSignal']),
+  kind: z.enum(['wait', 'unsteady', 'clipped', 'overRange', 'notSettled', 'noSignal']),
   sentence: z.string(),
 });
 export type MeterAdvice = z.infer<typeof MeterAdvice>;

@@ -77,5 +77,6 @@ describe('your meter over time', () => {
     await panel.locator('[data-test=meter-profile-select]').click();
     await page.getByRole('option', { name: 'Slow bench averaging, 2 s filter' }).waitFor();
     await page.keyboard.press('Escape');
+    await panel.screenshot({ path: 'test-results/screenshots/meter-time-describe.png' });
   });
 });

@@ -10,6 +10,8 @@ export interface AdviceInput {
   rippleOrder: 1 | 2;
   clippedFraction: number;
   clipLevel: number | null;
+  /** Full scale of a fixed range, or null when auto-ranging. */
+  fullScale: number | null;
   start: 'connected' | 'settled';
   repeated: boolean;
   simulatedS: number;
@@ -29,7 +31,7 @@ const ceil2 = (v: number) => {
 
 /**
  * One sentence on what the user should do with this meter on this waveform, in order of what matters:
- * clipping, then a ripple too large to read, then a record too short, then how long to wait. The
+ * clipping or over-range, then a ripple too large to read, then a record too short, then how long to wait. The
  * frequency below which the meter cannot read steadily scales the ripple as 1/f (one pole, a peak
  * detector's droop) or 1/f² (two poles), as it does once ωτ ≫ 1.
  */
@@ -37,6 +39,9 @@ export function meterTimeAdvice(a: AdviceInput): MeterAdvice {
   const final = Math.abs(a.steadyStateReading);
   if (a.clippedFraction > 0 && a.clipLevel !== null) {
     return { kind: 'clipped', sentence: `Choose a higher range: the input exceeds this meter's crest-factor headroom (±${round2(a.clipLevel)} ${a.unit}) and its peaks are cut, so the reading is low.` };
+  }
+  if (a.fullScale !== null && final > a.fullScale) {
+    return { kind: 'overRange', sentence: `Choose a higher range: the reading (${round2(final)} ${a.unit}) is beyond this range's full scale of ${round2(a.fullScale)} ${a.unit}, so the display shows over-range.` };
   }
   if (!(final > 0)) return { kind: 'noSignal', sentence: 'The meter sees no signal on this channel: its reading stays at zero.' };
   const swing = a.ripplePeakToPeak / final;

@@ -84,7 +84,7 @@ export function simulateMeter(x: Samples, sampleRateHz: number, profile: FrontEn
     steadyStateReading: steady.mean,
     advice: meterTimeAdvice({
       steadyStateReading: target.mean, ripplePeakToPeak: target.peakToPeak, settlingTimeS: run.settlingTimeS, displayRateHz: p.displayRateHz, fundamentalHz: f0,
-      rippleOrder: fe.rippleOrder, clippedFraction: target.clippedFraction, clipLevel: clipLevelOf(p), start, repeated: repeat, simulatedS, unit: options.unit ?? '',
+      rippleOrder: fe.rippleOrder, clippedFraction: target.clippedFraction, clipLevel: clipLevelOf(p), fullScale: p.rangeFullScale, start, repeated: repeat, simulatedS, unit: options.unit ?? '',
     }),
     run: {
       fromS: options.t0S ?? 0,

@@ -11,7 +11,7 @@ import { sampled, shapes } from '../../helpers/signals';
 
 const base: AdviceInput = {
   steadyStateReading: 230, ripplePeakToPeak: 0.5, settlingTimeS: 1.38, displayRateHz: 5, fundamentalHz: 50, rippleOrder: 1,
-  clippedFraction: 0, clipLevel: null, start: 'connected', repeated: true, simulatedS: 4, unit: 'V',
+  clippedFraction: 0, clipLevel: null, fullScale: null, start: 'connected', repeated: true, simulatedS: 4, unit: 'V',
 };
 
 describe('meterTimeAdvice', () => {
@@ -29,8 +29,10 @@ describe('meterTimeAdvice', () => {
     expect(meterTimeAdvice({ ...swing, fundamentalHz: null }).sentence).toMatch(/wanders by ±4 %/);
   });
 
-  it('clipping comes first, then no signal, then a record too short', () => {
-    expect(meterTimeAdvice({ ...base, clippedFraction: 0.01, clipLevel: 1800 }).kind).toBe('clipped');
+  it('clipping comes first, then over-range, no signal, a record too short', () => {
+    expect(meterTimeAdvice({ ...base, clippedFraction: 0.01, clipLevel: 1800, fullScale: 200 }).kind).toBe('clipped');
+    expect(meterTimeAdvice({ ...base, fullScale: 200 }).sentence).toBe("Choose a higher range: the reading (230 V) is beyond this range's full scale of 200 V, so the display shows over-range.");
+    expect(meterTimeAdvice({ ...base, fullScale: 600 }).kind).toBe('wait');
     expect(meterTimeAdvice({ ...base, steadyStateReading: 0, ripplePeakToPeak: 0 }).kind).toBe('noSignal');
     expect(meterTimeAdvice({ ...base, settlingTimeS: null, repeated: false }).sentence).toMatch(/loop it/);
     expect(meterTimeAdvice({ ...base, settlingTimeS: null }).sentence).toMatch(/has not settled within 4 s/);

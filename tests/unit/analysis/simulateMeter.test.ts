@@ -185,6 +185,7 @@ describe('simulateMeter: high sample rates and limits', () => {
   it('shows over-range as null on a fixed range, and refuses samples that are not numbers', () => {
     const r = simulateMeter(record(shapes.sine(A)), FS, { type: 'trueRms', coupling: 'dc', averagingTauS: 0.01, rangeFullScale: 2, counts: 2000 }, { repeat: true });
     expect(r.display[r.display.length - 1].value).toBeNull();
+    expect(r.advice.kind).toBe('overRange');
     const bad = record(shapes.sine(A));
     bad[7] = Number.NaN;
     expect(() => simulateMeter(bad, FS, { type: 'averaging', coupling: 'dc', averagingTauS: 1 })).toThrow(/sample 7/);
