@@ -81,6 +81,7 @@ export class DisplaySampler {
  */
 export class SettlingTracker {
   private readonly ring: Float64Array;
+  private slot = 0;
   private sum = 0;
   private seen = 0;
   /** Index (centre of the averaging window) of the last trend value outside the band, or −1. */
@@ -94,19 +95,29 @@ export class SettlingTracker {
   }
 
   push(buf: Float64Array, n: number, offset: number): void {
-    const P = this.ring.length;
+    const { ring, final, band } = this;
+    const P = ring.length;
+    const lag = (P - 1) / 2;
+    let { slot, sum, seen, lastOutside } = this;
     for (let k = 0; k < n; k++) {
-      const slot = this.seen % P;
-      this.sum += buf[k] - this.ring[slot];
-      this.ring[slot] = buf[k];
-      this.seen++;
-      const centre = offset + k - (P - 1) / 2;
+      const v = buf[k];
+      sum += v - ring[slot];
+      ring[slot] = v;
+      if (++slot === P) {
+        slot = 0;
+        // Re-add from the ring once a period: a running sum over millions of samples would drift.
+        sum = 0;
+        for (let j = 0; j < P; j++) sum += ring[j];
+      }
+      seen++;
       // Until a whole period has been seen, the mean of what has been.
-      if (Math.abs(this.sum / Math.min(this.seen, P) - this.final) > this.band) this.lastOutside = centre;
-      // Re-add from the ring now and then: a running sum over millions of samples would drift.
-      if (this.seen % (P * 4096) === 0) this.sum = this.ring.reduce((s, v) => s + v, 0);
+      if (Math.abs(sum / (seen < P ? seen : P) - final) > band) lastOutside = offset + k - lag;
     }
-    this.lastIndex = offset + n - 1 - (P - 1) / 2;
+    this.slot = slot;
+    this.sum = sum;
+    this.seen = seen;
+    this.lastOutside = lastOutside;
+    this.lastIndex = offset + n - 1 - lag;
   }
 
   /** Seconds from the start to the settled reading, or null while the latest trend value is outside the band. */
