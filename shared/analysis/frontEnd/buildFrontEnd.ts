@@ -1,4 +1,5 @@
 import { SINE_FORM_FACTOR } from '../meters';
+import type { Samples } from '../samples';
 import { DoublePoleLowPass } from './doublePoleLowPass';
 import { CouplingHighPass, FirstOrderLowPass } from './firstOrderSections';
 import { PeakHold } from './peakHold';
@@ -19,7 +20,7 @@ export interface FrontEnd {
    * converter output over one loop in that state (a new array; `loop` is left as it is), with the
    * number of samples the input stage clips in each loop.
    */
-  settleOn(loop: Float64Array): { output: Float64Array; clipped: number };
+  settleOn(loop: Samples): { output: Float64Array; clipped: number };
   /** Samples clipped by the input stage since the last call. */
   takeClipped(): number;
 }

@@ -1,3 +1,4 @@
+import type { Samples } from '../samples';
 import { resampleLoop } from './resampleLoop';
 import type { ResolvedFrontEnd } from './resolveFrontEnd';
 
@@ -8,7 +9,7 @@ export const MAX_RUN_S = 300;
 
 export interface RunPlan {
   /** What each pass feeds the front end: the span once, or the loop (resampled when decimated). */
-  source: Float64Array;
+  source: Samples;
   sampleRateHz: number;
   decimation: number;
   /** Samples to simulate at most; a looped run stops earlier once it has settled. */
@@ -22,7 +23,7 @@ const slowestTauS = (p: ResolvedFrontEnd) => (p.coupling === 'ac' ? p.couplingTa
  * front end's slowest time constants (e^(−12) leaves nothing of any start), at most MAX_RUN_S, and
  * resamples the loop when that many passes would exceed RUN_BUDGET_SAMPLES.
  */
-export function planRun(p: ResolvedFrontEnd, span: Float64Array, loop: Float64Array, sampleRateHz: number, repeat: boolean): RunPlan {
+export function planRun(p: ResolvedFrontEnd, span: Samples, loop: Samples, sampleRateHz: number, repeat: boolean): RunPlan {
   if (!repeat) return { source: span, sampleRateHz, decimation: 1, plannedSamples: span.length };
   const loopS = loop.length / sampleRateHz;
   const planS = Math.min(MAX_RUN_S, Math.max(2 * loopS, 12 * slowestTauS(p) + 2 / p.displayRateHz));

@@ -1,3 +1,5 @@
+import type { Samples } from '../samples';
+
 /**
  * A loop of `x.length` samples as `m` samples, each the mean of the input over its own 1/m of the loop
  * (the input taken as held over each sample, fractional samples weighted by the part that falls
@@ -7,7 +9,7 @@
  * component at f by about sin(πfD/fs) / (D·sin(πf/fs)) ≈ 1 − (πfD/fs)²/6 (see averagingGain), so the
  * rate after it must stay well above the waveform's harmonics of interest.
  */
-export function resampleLoop(x: Float64Array, m: number): Float64Array {
+export function resampleLoop(x: Samples, m: number): Float64Array {
   const n = x.length;
   if (!(m >= 1 && m <= n && Number.isInteger(m))) throw new RangeError(`resampleLoop: ${m} samples must be a whole number from 1 to the loop's ${n}`);
   const out = new Float64Array(m);

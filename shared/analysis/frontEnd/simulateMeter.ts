@@ -41,7 +41,8 @@ const TAIL_CYCLES = 3;
 export function simulateMeter(x: Samples, sampleRateHz: number, profile: FrontEndProfile, options: SimulationOptions = {}): MeterSimulationResponse {
   if (!(sampleRateHz > 0)) throw new RangeError(`simulateMeter: the sample rate must be positive, got ${sampleRateHz}`);
   if (x.length < 2) throw new RangeError(`simulateMeter: need at least 2 samples, got ${x.length}`);
-  const span = Float64Array.from(x);
+  // Float32 samples, as stored, are widened block by block as they enter the front end, not copied whole.
+  const span = x;
   for (let i = 0; i < span.length; i++) {
     if (!Number.isFinite(span[i])) throw new RangeError(`simulateMeter: sample ${i} is not a finite number; simulate a span without gaps`);
   }

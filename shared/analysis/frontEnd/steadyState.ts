@@ -1,3 +1,4 @@
+import type { Samples } from '../samples';
 import { buildFrontEnd } from './buildFrontEnd';
 import type { ResolvedFrontEnd } from './resolveFrontEnd';
 
@@ -11,7 +12,7 @@ export interface SteadyState {
 }
 
 /** The periodic steady state of front end `p` on `loop` (samples per second `sampleRateHz`), solved directly. */
-export function steadyStateOf(p: ResolvedFrontEnd, sampleRateHz: number, loop: Float64Array): SteadyState {
+export function steadyStateOf(p: ResolvedFrontEnd, sampleRateHz: number, loop: Samples): SteadyState {
   const { output, clipped } = buildFrontEnd(p, sampleRateHz).settleOn(loop);
   let sum = 0;
   let lo = Infinity;
