@@ -80,6 +80,8 @@ export const MeterSimulationResponse = z.object({
     settlingTimeS: z.number().nullable(),
     /** Peak-to-peak ripple of the converter output once settled. */
     ripplePeakToPeak: z.number(),
+    /** Of that, the slow wander: the swing left after averaging over each fundamental period (a hunting motor, a cycling load). */
+    wanderPeakToPeak: z.number(),
   }),
   /** The converter's mean output once every filter has settled on the looped span, at the capture's own rate. */
   steadyStateReading: z.number(),

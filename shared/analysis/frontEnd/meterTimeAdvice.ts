@@ -4,6 +4,8 @@ import type { MeterAdvice } from '../../schemas/meterSimulation';
 export interface AdviceInput {
   steadyStateReading: number;
   ripplePeakToPeak: number;
+  /** The part of the ripple left after averaging over each fundamental period. */
+  wanderPeakToPeak: number;
   settlingTimeS: number | null;
   displayRateHz: number;
   fundamentalHz: number | null;
@@ -31,9 +33,10 @@ const ceil2 = (v: number) => {
 
 /**
  * One sentence on what the user should do with this meter on this waveform, in order of what matters:
- * clipping or over-range, then a ripple too large to read, then a record too short, then how long to wait. The
- * frequency below which the meter cannot read steadily scales the ripple as 1/f (one pole, a peak
- * detector's droop) or 1/f² (two poles), as it does once ωτ ≫ 1.
+ * clipping or over-range, then a swing too large to read (slow wander of the waveform itself, or ripple
+ * at its frequency), then a record too short, then how long to wait. The frequency below which the
+ * meter cannot read steadily scales the ripple as 1/f (one pole, a peak detector's droop) or 1/f² (two
+ * poles), as it does once ωτ ≫ 1.
  */
 export function meterTimeAdvice(a: AdviceInput): MeterAdvice {
   const final = Math.abs(a.steadyStateReading);
@@ -45,13 +48,14 @@ export function meterTimeAdvice(a: AdviceInput): MeterAdvice {
   }
   if (!(final > 0)) return { kind: 'noSignal', sentence: 'The meter sees no signal on this channel: its reading stays at zero.' };
   const swing = a.ripplePeakToPeak / final;
+  const wander = a.fundamentalHz === null ? swing : a.wanderPeakToPeak / final;
+  const plusMinus = (s: number) => `±${round2((100 * s) / 2)} %`;
+  if (wander > STEADY_SWING) {
+    return { kind: 'unsteady', sentence: `This meter cannot give a steady reading of this waveform: it wanders by ${plusMinus(wander)} because the waveform itself changes more slowly than the meter averages (a hunting motor, a cycling load); take the mean of several readings.` };
+  }
   if (swing > STEADY_SWING) {
-    const plusMinus = `±${round2((100 * swing) / 2)} %`;
-    if (a.fundamentalHz !== null) {
-      const lowest = a.fundamentalHz * (swing / STEADY_SWING) ** (1 / a.rippleOrder);
-      return { kind: 'unsteady', sentence: `This meter cannot give a steady reading below about ${ceil2(lowest)} Hz: here its reading swings by ${plusMinus}, so read a slower-averaging meter or take the mean of several readings.` };
-    }
-    return { kind: 'unsteady', sentence: `This meter cannot give a steady reading of this waveform: it wanders by ${plusMinus} because the waveform changes more slowly than the meter averages.` };
+    const lowest = a.fundamentalHz! * (swing / STEADY_SWING) ** (1 / a.rippleOrder);
+    return { kind: 'unsteady', sentence: `This meter cannot give a steady reading below about ${ceil2(lowest)} Hz: here its reading swings by ${plusMinus(swing)}, so read a slower-averaging meter or take the mean of several readings.` };
   }
   if (a.settlingTimeS === null) {
     return a.repeated

@@ -55,9 +55,10 @@ export function simulateMeter(x: Samples, sampleRateHz: number, profile: FrontEn
   const loop = span.subarray(win.startIndex, win.startIndex + win.sampleCount);
   const notes: string[] = [];
 
-  const steady = steadyStateOf(p, fs, loop);
+  const period = f0 !== null ? fs / f0 : null;
+  const steady = steadyStateOf(p, fs, loop, period);
   const tailCycles = Math.min(TAIL_CYCLES, win.cycles ?? 0);
-  const target = !repeat && f0 !== null && tailCycles >= 1 ? steadyStateOf(p, fs, span.subarray(span.length - Math.min(span.length, Math.round((tailCycles * fs) / f0)))) : steady;
+  const target = !repeat && f0 !== null && tailCycles >= 1 ? steadyStateOf(p, fs, span.subarray(span.length - Math.min(span.length, Math.round((tailCycles * fs) / f0))), period) : steady;
 
   const plan = planRun(p, span, loop, fs, repeat);
   const fe = buildFrontEnd(p, plan.sampleRateHz);
@@ -81,10 +82,10 @@ export function simulateMeter(x: Samples, sampleRateHz: number, profile: FrontEn
   return {
     trace: run.trace,
     display: run.displaySamples.map((s) => ({ tS: s.tS, value: displayed(s.value, resolution, p.rangeFullScale) })),
-    settled: { value: displayed(target.mean, resolution, null) ?? target.mean, settlingTimeS: run.settlingTimeS, ripplePeakToPeak: target.peakToPeak },
+    settled: { value: displayed(target.mean, resolution, null) ?? target.mean, settlingTimeS: run.settlingTimeS, ripplePeakToPeak: target.peakToPeak, wanderPeakToPeak: target.wanderPeakToPeak },
     steadyStateReading: steady.mean,
     advice: meterTimeAdvice({
-      steadyStateReading: target.mean, ripplePeakToPeak: target.peakToPeak, settlingTimeS: run.settlingTimeS, displayRateHz: p.displayRateHz, fundamentalHz: f0,
+      steadyStateReading: target.mean, ripplePeakToPeak: target.peakToPeak, wanderPeakToPeak: target.wanderPeakToPeak, settlingTimeS: run.settlingTimeS, displayRateHz: p.displayRateHz, fundamentalHz: f0,
       rippleOrder: fe.rippleOrder, clippedFraction: target.clippedFraction, clipLevel: clipLevelOf(p), fullScale: p.rangeFullScale, start, repeated: repeat, simulatedS, unit: options.unit ?? '',
     }),
     run: {

@@ -10,7 +10,7 @@ import { meterTimeAdvice, simulateMeter, type AdviceInput } from '../../../share
 import { sampled, shapes } from '../../helpers/signals';
 
 const base: AdviceInput = {
-  steadyStateReading: 230, ripplePeakToPeak: 0.5, settlingTimeS: 1.38, displayRateHz: 5, fundamentalHz: 50, rippleOrder: 1,
+  steadyStateReading: 230, ripplePeakToPeak: 0.5, wanderPeakToPeak: 0.1, settlingTimeS: 1.38, displayRateHz: 5, fundamentalHz: 50, rippleOrder: 1,
   clippedFraction: 0, clipLevel: null, fullScale: null, start: 'connected', repeated: true, simulatedS: 4, unit: 'V',
 };
 
@@ -27,6 +27,21 @@ describe('meterTimeAdvice', () => {
     expect(meterTimeAdvice(swing).sentence).toMatch(/^This meter cannot give a steady reading below about 67 Hz: here its reading swings by ±4 %/);
     expect(meterTimeAdvice({ ...swing, rippleOrder: 2 }).sentence).toMatch(/below about 34 Hz/);
     expect(meterTimeAdvice({ ...swing, fundamentalHz: null }).sentence).toMatch(/wanders by ±4 %/);
+    expect(meterTimeAdvice({ ...swing, wanderPeakToPeak: 0.06 * 230 }).sentence).toMatch(/wanders by ±3 % because the waveform itself changes/);
+  });
+
+  it('a motor hunting at 2 Hz (±10 % amplitude) makes a 0.8 s true RMS meter wander, however high the supply frequency', () => {
+    // The mean square swings ±20 % at 2 Hz; its τ/2 = 0.4 s low-pass passes 1/√(1 + (2π·2·0.4)²) = 0.195
+    // of that (first-order gain, from memory): ±3.9 % on the mean square, ±1.95 % on its root.
+    const x = Float64Array.from({ length: 10_000 }, (_, i) => {
+      const t = (i + 0.5) / 10_000;
+      return (1 + 0.1 * Math.sin(2 * Math.PI * 2 * t)) * 325 * Math.sin(2 * Math.PI * 50 * t);
+    });
+    const r = simulateMeter(x, 10_000, { type: 'trueRms', coupling: 'ac', averagingTauS: 0.8 }, { repeat: true, fundamentalHz: 50 });
+    const wander = r.settled.wanderPeakToPeak / r.steadyStateReading;
+    expect(wander).toBeGreaterThan(0.03);
+    expect(wander).toBeLessThan(0.05);
+    expect(r.advice.sentence).toMatch(/wanders by ±(1\.9|2) % because the waveform itself changes/);
   });
 
   it('clipping comes first, then over-range, no signal, a record too short', () => {
