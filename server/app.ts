@@ -19,6 +19,8 @@ import { captureRoutes } from './routes/captures';
 import { captureSetupRoutes } from './routes/captureSetup';
 import { healthRoutes } from './routes/health';
 import { projectMemberRoutes } from './routes/projectMembers';
+import { meterProfileRoutes } from './routes/meterProfiles';
+import { meterSimulationRoutes } from './routes/meterSimulation';
 import { projectRoutes } from './routes/projects';
 import { sharedRoutes, shareRoutes } from './routes/shares';
 import { userRoutes } from './routes/users';
@@ -75,6 +77,8 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   api.use(comparisonRoutes(ctx));
   api.use(shareRoutes(ctx));
   api.use(adminMailRoutes(ctx));
+  api.use(meterProfileRoutes(ctx));
+  api.use(meterSimulationRoutes(ctx));
   api.use(() => {
     throw new AppError(404, 'not_found', 'No such API route');
   });

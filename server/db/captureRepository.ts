@@ -135,3 +135,24 @@ export async function channelAnalyses(db: Db, id: number): Promise<unknown[]> {
   const rows = await db.select({ analysis: channels.analysis }).from(channels).where(eq(channels.captureId, id)).orderBy(asc(channels.idx));
   return rows.map((r) => (typeof r.analysis === 'string' ? JSON.parse(r.analysis) : r.analysis));
 }
+
+/** What a meter simulation needs of a capture and one channel: status, time base, unit and stored fundamental. */
+export async function findChannelTimeBase(db: Db, captureId: number, channel: number) {
+  const [row] = await db
+    .select({
+      status: captures.status,
+      errorMessage: captures.errorMessage,
+      sampleRate: captures.sampleRate,
+      sampleCount: captures.sampleCount,
+      t0: captures.t0,
+      channel: channels.idx,
+      unit: channels.unit,
+      frequency: sql<string | number | null>`JSON_VALUE(${channels.analysis}, '$.frequency')`,
+    })
+    .from(captures)
+    .leftJoin(channels, and(eq(channels.captureId, captures.id), eq(channels.idx, channel)))
+    .where(eq(captures.id, captureId));
+  if (!row) return null;
+  const frequency = row.frequency === null || row.frequency === 'null' ? null : Number(row.frequency);
+  return { ...row, frequency: Number.isFinite(frequency) ? frequency : null };
+}

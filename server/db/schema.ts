@@ -17,6 +17,7 @@ import {
 import type { ChannelSetup } from '../../shared/schemas/channelSetup';
 import type { PowerQuality } from '../../shared/schemas/powerQuality';
 import type { SystemSpec } from '../../shared/schemas/threePhase';
+import type { FrontEndProfile } from '../../shared/schemas/meterSimulation';
 
 /** Binary sample data: Buffer in, Buffer out. */
 const longblob = customType<{ data: Buffer; driverData: Buffer }>({
@@ -332,4 +333,21 @@ export const probePresets = mysqlTable(
     createdAt: timestamp('created_at').notNull().defaultNow(),
   },
   (t) => [index('probe_presets_project').on(t.projectId)],
+);
+
+/** A meter's front end saved for a project's team, or in one person's account. */
+export const meterProfiles = mysqlTable(
+  'meter_profiles',
+  {
+    id: id(),
+    name: varchar('name', { length: 120 }).notNull(),
+    scope: mysqlEnum('scope', ['project', 'account']).notNull(),
+    /** The project of a project profile; null for an account profile. */
+    projectId: ref('project_id').references(() => projects.id, { onDelete: 'cascade' }),
+    /** Its creator, who owns it when it is an account profile. */
+    createdBy: ref('created_by').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    profile: json('profile').$type<FrontEndProfile>().notNull(),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [index('meter_profiles_project').on(t.projectId), index('meter_profiles_creator').on(t.createdBy)],
 );

@@ -26,3 +26,15 @@ export { suggestDeclaredVoltage, declaredForChannel, NOMINAL_VOLTAGES } from './
 export { polar, abs as phasorMagnitude, argDeg as phasorAngleDeg, type Phasor } from './phasor';
 export { threePhaseSystems, type NamedChannel } from './threePhaseSystems';
 export { channelVoltageEvents } from './channelVoltageEvents';
+export { buildFrontEnd, type FrontEnd } from './frontEnd/buildFrontEnd';
+export { CouplingHighPass, FirstOrderLowPass } from './frontEnd/firstOrderSections';
+export { DoublePoleLowPass } from './frontEnd/doublePoleLowPass';
+export { PeakHold } from './frontEnd/peakHold';
+export { displayed, displayResolution } from './frontEnd/displayResolution';
+export { meterTimeAdvice, type AdviceInput } from './frontEnd/meterTimeAdvice';
+export { resampleLoop } from './frontEnd/resampleLoop';
+export { resolveFrontEnd, yourMeterProfileOf, type ResolvedFrontEnd } from './frontEnd/resolveFrontEnd';
+export { MAX_RUN_S, RUN_BUDGET_SAMPLES } from './frontEnd/planRun';
+export { simulateMeter, type SimulationOptions } from './frontEnd/simulateMeter';
+export { steadyStateOf, type SteadyState } from './frontEnd/steadyState';
+export { longestValidStretch, validStretchProblem, type ValidStretch } from './longestValidStretch';
