@@ -82,6 +82,21 @@ describe('saving meter profiles', () => {
   });
 });
 
+describe('meter profiles of a members-only project', () => {
+  it('are hidden from someone outside it, who can neither list, save into nor delete them', async () => {
+    const secret = (await eng.post('/api/projects').send({ name: 'Client C: drive retrofit', visibility: 'members' })).body.project.id;
+    const saved = await eng.post('/api/meter-profiles').send({ name: 'Client C clamp meter', scope: 'project', projectId: secret, profile: handheld });
+    expect(saved.status).toBe(201);
+    expect(names(await eng.get(`/api/meter-profiles?projectId=${secret}`))).toContain('Client C clamp meter');
+
+    expect((await eng2.get(`/api/meter-profiles?projectId=${secret}`)).status).toBe(404);
+    expect(names(await eng2.get('/api/meter-profiles'))).not.toContain('Client C clamp meter');
+    expect((await eng2.post('/api/meter-profiles').send({ name: 'Sneaked in', scope: 'project', projectId: secret, profile: handheld })).status).toBe(404);
+    expect((await eng2.delete(`/api/meter-profiles/${saved.body.id}`)).status).toBe(404);
+    expect(names(await admin.get(`/api/meter-profiles?projectId=${secret}`))).toContain('Client C clamp meter');
+  });
+});
+
 describe('the demo presets', () => {
   it('are valid profiles, and each reads clean 230 V mains steadily, with a wait of a few seconds at most', async () => {
     await seedMeterProfiles(app.ctx.db, projectId, (await eng.get('/api/auth/me')).body.user.id);
