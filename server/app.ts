@@ -13,9 +13,12 @@ import { adminMailRoutes } from './routes/adminMail';
 import { annotationRoutes } from './routes/annotations';
 import { authRoutes } from './routes/auth';
 import { comparisonRoutes } from './routes/comparisons';
+import { complianceRoutes } from './routes/compliance';
+import { exportRoutes } from './routes/exports';
 import { captureRoutes } from './routes/captures';
 import { healthRoutes } from './routes/health';
 import { projectRoutes } from './routes/projects';
+import { reportRoutes } from './routes/reports';
 import { sharedRoutes, shareRoutes } from './routes/shares';
 import { userRoutes } from './routes/users';
 
@@ -63,6 +66,9 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   api.use(captureRoutes(ctx, onQueued));
   api.use(annotationRoutes(ctx));
   api.use(comparisonRoutes(ctx));
+  api.use(exportRoutes(ctx));
+  api.use(reportRoutes(ctx));
+  api.use(complianceRoutes(ctx));
   api.use(shareRoutes(ctx));
   api.use(adminMailRoutes(ctx));
   api.use(() => {

@@ -59,6 +59,8 @@ export const ConfigSchema = z.object({
   SHARE_READS_PER_LINK: z.coerce.number().int().positive().default(120),
   /** Requests a minute that one address may make to shared links, all links together. */
   SHARE_READS_PER_ADDRESS: z.coerce.number().int().positive().default(240),
+  /** Samples per channel one samples.csv or samples.json export may hold; a longer span is refused, naming this limit. */
+  EXPORT_MAX_SAMPLES: z.coerce.number().int().min(1000).max(100_000_000).default(2_000_000),
 });
 export type Config = z.infer<typeof ConfigSchema>;
 

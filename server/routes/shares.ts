@@ -10,6 +10,8 @@ import { allow, currentUser } from '../middleware/auth';
 import { clientAddress, limitRequests } from '../middleware/requestLimits';
 import { hashSecretToken } from '../services/secretTokens';
 import { createShare, liveShares, revokeShare, sharedSamples, sharedView } from '../services/shareService';
+import { sharedCaptureReport, sharedReport } from '../services/reportService';
+import { sendPdf } from './sendFile';
 
 /** Creating, listing and revoking links: signed-in engineers and admins. */
 export function shareRoutes(ctx: AppContext): Router {
@@ -67,6 +69,14 @@ export function sharedRoutes(ctx: AppContext): Router {
     .get('/shared/:token/captures/:captureId/samples', async (req, res) => {
       const { token, captureId } = TokenCaptureParams.parse(req.params);
       sendSamples(req, res, await sharedSamples(ctx, token, captureId, SamplesQuery.parse(req.query)));
+    })
+    // Reports are the costliest reads a link allows: they sit behind the same limits.
+    .get('/shared/:token/report.pdf', async (req, res) => {
+      sendPdf(res, await sharedReport(ctx, TokenParam.parse(req.params).token));
+    })
+    .get('/shared/:token/captures/:captureId/report.pdf', async (req, res) => {
+      const { token, captureId } = TokenCaptureParams.parse(req.params);
+      sendPdf(res, await sharedCaptureReport(ctx, token, captureId));
     })
     .all(['/shared/:token', '/shared/:token/{*rest}'], () => {
       throw new AppError(405, 'read_only', 'A shared link is read-only');
