@@ -2,11 +2,15 @@ import type { ReportOptions } from '../../shared/schemas/report';
 import type { AppContext } from '../context';
 import { notFound } from '../errors';
 import { exportFileName } from '../exports/exportFileName';
-import { renderCaptureReport } from '../reports/captureReport';
 import { captureReportData, type ReportAuthor } from '../reports/captureReportData';
-import { renderComparisonReport } from '../reports/comparisonReport';
 import { comparisonReportData } from '../reports/comparisonReportData';
 import { openShare, sharedCaptureIds } from './shareService';
+
+/**
+ * The renderers are loaded on the first report, not at start-up: pdfkit and fontkit take 0.2–1.5 s to
+ * load here, which every server start (and every test that starts one) would otherwise pay.
+ */
+const renderers = () => Promise.all([import('../reports/captureReport'), import('../reports/comparisonReport')]);
 
 export interface ReportFile {
   pdf: Buffer;
@@ -16,12 +20,14 @@ export interface ReportFile {
 /** A capture's report, for a signed-in person, with what they chose to add. */
 export async function captureReport(ctx: AppContext, captureId: number, author: ReportAuthor): Promise<ReportFile> {
   const data = await captureReportData(ctx, captureId, author);
+  const [{ renderCaptureReport }] = await renderers();
   return { pdf: await renderCaptureReport(data), fileName: exportFileName(data.capture.name, 'report.pdf', `capture-${captureId}`) };
 }
 
 /** A saved comparison's report. */
 export async function comparisonReport(ctx: AppContext, comparisonId: number, author: ReportAuthor): Promise<ReportFile> {
   const data = await comparisonReportData(ctx, comparisonId, author);
+  const [, { renderComparisonReport }] = await renderers();
   return { pdf: await renderComparisonReport(data), fileName: exportFileName(data.comparison.name, 'report.pdf', `comparison-${comparisonId}`) };
 }
 
