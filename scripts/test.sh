@@ -8,6 +8,7 @@ source scripts/lib.sh
 ensure_node_modules
 ensure_apt mariadbd mariadb-server
 ensure_apt chromium chromium
+ensure_apt pdftotext poppler-utils
 
 TEST_DB_PORT=${TEST_DB_PORT:-3407}
 TEST_DATABASE_URL=$(scripts/db.sh up test "$TEST_DB_PORT" crestline_test TEST_DB_PORT)

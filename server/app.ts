@@ -15,6 +15,8 @@ import { apiTokenRoutes } from './routes/apiTokens';
 import { annotationRoutes } from './routes/annotations';
 import { authRoutes } from './routes/auth';
 import { comparisonRoutes } from './routes/comparisons';
+import { complianceRoutes } from './routes/compliance';
+import { exportRoutes } from './routes/exports';
 import { captureRoutes } from './routes/captures';
 import { captureSetupRoutes } from './routes/captureSetup';
 import { healthRoutes } from './routes/health';
@@ -22,6 +24,7 @@ import { projectMemberRoutes } from './routes/projectMembers';
 import { meterProfileRoutes } from './routes/meterProfiles';
 import { meterSimulationRoutes } from './routes/meterSimulation';
 import { projectRoutes } from './routes/projects';
+import { reportRoutes } from './routes/reports';
 import { sharedRoutes, shareRoutes } from './routes/shares';
 import { userRoutes } from './routes/users';
 
@@ -75,6 +78,9 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   api.use(captureSetupRoutes(ctx, onQueued));
   api.use(annotationRoutes(ctx));
   api.use(comparisonRoutes(ctx));
+  api.use(exportRoutes(ctx));
+  api.use(reportRoutes(ctx));
+  api.use(complianceRoutes(ctx));
   api.use(shareRoutes(ctx));
   api.use(adminMailRoutes(ctx));
   api.use(meterProfileRoutes(ctx));

@@ -68,6 +68,8 @@ export const ConfigSchema = z.object({
   SHARE_READS_PER_ADDRESS: z.coerce.number().int().positive().default(240),
   /** Requests a minute one API token may make (then 429 with Retry-After); every server process shares the count. */
   TOKEN_REQUESTS_PER_MINUTE: z.coerce.number().int().positive().default(300),
+  /** Samples per channel one samples.csv or samples.json export may hold; a longer span is refused, naming this limit. */
+  EXPORT_MAX_SAMPLES: z.coerce.number().int().min(1000).max(100_000_000).default(2_000_000),
 });
 export type Config = z.infer<typeof ConfigSchema>;
 

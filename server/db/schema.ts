@@ -18,6 +18,7 @@ import type { ChannelSetup } from '../../shared/schemas/channelSetup';
 import type { PowerQuality } from '../../shared/schemas/powerQuality';
 import type { SystemSpec } from '../../shared/schemas/threePhase';
 import type { FrontEndProfile } from '../../shared/schemas/meterSimulation';
+import type { ComplianceRequest } from '../../shared/schemas/compliance';
 
 /** Binary sample data: Buffer in, Buffer out. */
 const longblob = customType<{ data: Buffer; driverData: Buffer }>({
@@ -217,6 +218,21 @@ export const comparisons = mysqlTable('comparisons', {
   createdAt: timestamp('created_at').notNull().defaultNow(),
 });
 
+/**
+ * Harmonic limit checks an engineer kept with a capture, so that its report lists them. Only the request
+ * is kept: the result is computed again from the capture's current analysis, so it never goes stale.
+ */
+export const limitChecks = mysqlTable(
+  'limit_checks',
+  {
+    id: id(),
+    captureId: ref('capture_id').notNull().references(() => captures.id, { onDelete: 'cascade' }),
+    request: json('request').$type<ComplianceRequest>().notNull(),
+    createdBy: ref('created_by').references(() => users.id),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [index('limit_checks_capture').on(t.captureId)],
+);
 
 /** A read-only link to a capture or a saved comparison. Only the token's SHA-256 is stored. */
 export const shares = mysqlTable(

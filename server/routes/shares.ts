@@ -12,6 +12,8 @@ import { clientAddress, limitRequests } from '../middleware/requestLimits';
 import { hashSecretToken } from '../services/secretTokens';
 import { channelTrend } from '../services/trendService';
 import { createShare, liveShares, revokeShare, sharedCaptureIds, sharedSamples, sharedView } from '../services/shareService';
+import { sharedCaptureReport, sharedReport } from '../services/reportService';
+import { sendPdf } from './sendFile';
 
 /** Creating, listing and revoking links: signed-in engineers and admins. */
 export function shareRoutes(ctx: AppContext): Router {
@@ -74,6 +76,14 @@ export function sharedRoutes(ctx: AppContext): Router {
       const { token, captureId } = TokenCaptureParams.parse(req.params);
       if (!(await sharedCaptureIds(ctx, token)).includes(captureId)) throw notFound('This shared capture');
       res.json(await channelTrend(ctx, captureId, TrendQuery.parse(req.query)));
+    })
+    // Reports are the costliest reads a link allows: they sit behind the same limits.
+    .get('/shared/:token/report.pdf', async (req, res) => {
+      sendPdf(res, await sharedReport(ctx, TokenParam.parse(req.params).token));
+    })
+    .get('/shared/:token/captures/:captureId/report.pdf', async (req, res) => {
+      const { token, captureId } = TokenCaptureParams.parse(req.params);
+      sendPdf(res, await sharedCaptureReport(ctx, token, captureId));
     })
     .all(['/shared/:token', '/shared/:token/{*rest}'], () => {
       throw new AppError(405, 'read_only', 'A shared link is read-only');
