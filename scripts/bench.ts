@@ -198,14 +198,14 @@ if (py.status === 0) {
 
 // Binary against JSON for the same window, and span figures computed on the server.
 {
-  const window = `${base}/api/captures/${upload.id}/samples?channel=0&fromS=1&toS=3&points=20000`;
+  const window = `${base}/api/captures/${upload.id}/samples?channel=0&points=20000`;
   const json = await (await fetch(window, { headers })).arrayBuffer();
   const binary = await (await fetch(window, { headers: { ...headers, accept: SAMPLES_BINARY_TYPE } })).arrayBuffer();
   line('samples answer, 20,000 points, binary vs JSON', `${(binary.byteLength / 1024).toFixed(0)} KiB`, `JSON ${(json.byteLength / 1024).toFixed(0)} KiB; ${(json.byteLength / binary.byteLength).toFixed(1)} times smaller (target ≥ 4)`);
   const spanTimes: number[] = [];
   for (let i = 0; i < 3; i++) {
     const t = performance.now();
-    const r = await fetch(`${base}/api/captures/${upload.id}/figures?fromS=0&toS=10`, { headers });
+    const r = await fetch(`${base}/api/captures/${upload.id}/figures`, { headers });
     if (!r.ok) throw new Error(`span figures refused: ${r.status} ${await r.text()}`);
     await r.json();
     spanTimes.push(performance.now() - t);

@@ -1,4 +1,4 @@
-import { and, eq, sql } from 'drizzle-orm';
+import { and, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { captures, jobs } from '../db/schema';
 
@@ -76,12 +76,21 @@ export async function releaseJob(db: Db, job: ClaimedJob, workerId: string): Pro
 /**
  * Queues a capture for processing unless a job for it is already waiting or running (a second
  * re-analysis request, or two admins at once, must not process one capture twice side by side).
- * Pass the transaction that creates or resets the capture. Returns whether a job was added.
+ * The capture's row is locked first, so two requests for one capture are served one after the other.
+ * (Not one INSERT … SELECT … WHERE NOT EXISTS on jobs: under concurrent uploads MariaDB fails that with
+ * ER_AUTOINC_READ_FAILED, seen in the bench's load step.) Pass the transaction that creates or resets
+ * the capture, or the database. Returns whether a job was added.
  */
-export async function enqueue(db: Pick<Db, 'execute'>, captureId: number, kind: 'ingest' | 'reanalyse'): Promise<boolean> {
-  const [result] = (await db.execute(
-    sql`INSERT INTO jobs (kind, capture_id) SELECT ${kind}, ${captureId} FROM DUAL
-        WHERE NOT EXISTS (SELECT 1 FROM jobs WHERE capture_id = ${captureId} AND status IN ('queued', 'running'))`,
-  )) as unknown as [{ affectedRows: number }];
-  return result.affectedRows === 1;
+export async function enqueue(db: Pick<Db, 'transaction'>, captureId: number, kind: 'ingest' | 'reanalyse'): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    await tx.select({ id: captures.id }).from(captures).where(eq(captures.id, captureId)).for('update');
+    const [pending] = await tx
+      .select({ id: jobs.id })
+      .from(jobs)
+      .where(and(eq(jobs.captureId, captureId), inArray(jobs.status, ['queued', 'running'])))
+      .limit(1);
+    if (pending) return false;
+    await tx.insert(jobs).values({ captureId, kind });
+    return true;
+  });
 }
