@@ -21,6 +21,12 @@ afterAll(() => app.stop());
 const jobRows = (captureId: number) => app.ctx.db.select().from(jobs).where(eq(jobs.captureId, captureId));
 
 describe('the capture queue', () => {
+  it('twenty uploads at once are all accepted, each with one queued job', async () => {
+    const res = await Promise.all(Array.from({ length: 20 }, (_, i) => uploadText(eng, `burst-${i}.csv`, sineCsv(100 + i, 50, 5000, 0.05))));
+    for (const r of res) expect(r.status, JSON.stringify(r.body)).toBe(202);
+    for (const r of res) expect(await jobRows(r.body.id)).toHaveLength(1);
+  });
+
   it('two consumers on one database process 20 captures exactly once', async () => {
     const ids: number[] = [];
     for (let i = 0; i < 20; i++) ids.push((await uploadText(eng, `c${i}.csv`, sineCsv(1 + i, 50, 5000, 0.1))).body.id);
