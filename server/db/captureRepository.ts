@@ -92,6 +92,9 @@ export async function findCaptureDetail(db: Db, id: number): Promise<CaptureDeta
     metadata: parse(row.metadata) ?? [],
     engineVersion: row.engineVersion,
     readyAt: row.readyAt ? row.readyAt.toISOString() : null,
+    format: row.format,
+    dataName: row.dataName,
+    comtrade: parse(row.comtrade) ?? null,
   };
 }
 

@@ -58,6 +58,10 @@ export function storeReady(db: Db, job: ClaimedJob, workerId: string, r: IngestR
           );
         }
       }
+      // Marks the file itself sets (a COMTRADE trigger) belong to no one channel.
+      if (r.marks?.length) {
+        await tx.insert(annotations).values(r.marks.map((m) => ({ captureId: job.captureId, channelIdx: null, ...m, note: '', source: 'finder' as const, state: 'suggested' as const })));
+      }
       await tx
         .update(captures)
         .set({
@@ -70,6 +74,7 @@ export function storeReady(db: Db, job: ClaimedJob, workerId: string, r: IngestR
           t0: r.t0,
           detected: r.detected,
           metadata: r.metadata,
+          comtrade: r.comtrade ?? null,
           engineVersion: r.engineVersion,
           readyAt: sql`NOW()`,
         })

@@ -116,8 +116,8 @@ export class IngestWorkerClient {
         return this.run<IngestedChannel>({ kind: 'analyse', request: analyse }, budgetMs, [channel.samples.buffer as ArrayBuffer]);
       }),
     );
-    const { sampleRate, sampleCount, t0, detected, metadata } = parsed;
-    return { sampleRate, sampleCount, t0, detected, metadata, engineVersion: ENGINE_VERSION, channels };
+    const { sampleRate, sampleCount, t0, detected, metadata, comtrade, marks } = parsed;
+    return { sampleRate, sampleCount, t0, detected, metadata, comtrade, marks, engineVersion: ENGINE_VERSION, channels };
   }
 
   /** Terminates every worker; their unfinished tasks are rejected. The next task starts fresh ones. */

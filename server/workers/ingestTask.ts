@@ -5,6 +5,7 @@ import { readCaptureBytes } from '../../shared/csv/readCaptureBytes';
 import type { ChannelAnalysis } from '../../shared/schemas/analysis';
 import type { DetectedFormat } from '../../shared/schemas/capture';
 import { float32Chunks, overviewPyramid } from '../services/samplePacking';
+import { parseComtrade, type ComtradeFiles, type FileExtras } from './parseComtrade';
 
 export interface IngestRequest {
   file: string;
@@ -12,6 +13,8 @@ export interface IngestRequest {
   sampleRateHint: number | null;
   /** Bounds on what the reader accepts (rows × channels from the server's memory setting). */
   limits?: { maxSamples?: number };
+  /** Set for a COMTRADE record: `file` is its .cfg (with `dataFile`) or its .cff (without). */
+  comtrade?: ComtradeFiles;
 }
 
 export interface IngestedChannel {
@@ -24,7 +27,7 @@ export interface IngestedChannel {
   overviews: { bucketSize: number; data: Buffer }[];
 }
 
-export interface IngestResult {
+export interface IngestResult extends FileExtras {
   sampleRate: number;
   sampleCount: number;
   t0: number;
@@ -58,7 +61,7 @@ export interface ParsedChannel {
   samples: Float64Array;
 }
 
-export interface ParsedFile {
+export interface ParsedFile extends FileExtras {
   sampleRate: number;
   sampleCount: number;
   t0: number;
@@ -69,6 +72,7 @@ export interface ParsedFile {
 
 /** Reads one capture file into channels of samples. CPU-bound: runs in a worker thread. */
 export function parseFile(req: IngestRequest): ParsedFile {
+  if (req.comtrade) return parseComtrade(req, req.comtrade, fileChunks);
   const t0 = performance.now();
   const data = readCaptureBytes(fileChunks(req.file), { sampleRateHint: req.sampleRateHint, totalBytes: req.sizeBytes });
   if (process.env.CRESTLINE_TRACE) console.log(`  reading ${(performance.now() - t0).toFixed(0)} ms`);

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { ChannelAnalysis } from './analysis';
+import { ComtradeSummary } from './comtrade';
 
 export const CaptureStatus = z.enum(['queued', 'processing', 'ready', 'failed']);
 export type CaptureStatus = z.infer<typeof CaptureStatus>;
@@ -62,6 +63,10 @@ export const CaptureDetail = CaptureSummary.extend({
   metadata: z.array(z.object({ key: z.string(), value: z.string(), line: z.number().int() })),
   engineVersion: z.number().int().nullable(),
   readyAt: z.string().nullable(),
+  /** 'comtrade': originalName is the .cfg (or .cff), dataName the .dat beside it. */
+  format: z.enum(['csv', 'comtrade']),
+  dataName: z.string().nullable(),
+  comtrade: ComtradeSummary.nullable(),
 });
 export type CaptureDetail = z.infer<typeof CaptureDetail>;
 
@@ -85,7 +90,13 @@ export const UploadFields = z.object({
   name: z.string().trim().max(200).optional(),
   projectId: z.coerce.number().int().positive().optional(),
   sampleRate: z.coerce.number().positive().optional(),
+  /** For a COMTRADE record: values on the primary (default) or secondary side of the instrument transformers. */
+  comtradeValues: z.enum(['primary', 'secondary']).optional(),
 });
+export type UploadFields = z.infer<typeof UploadFields>;
+
+/** Which kept file GET /captures/:id/original serves: the uploaded file (a CSV, .cfg or .cff), or the .dat beside a .cfg. */
+export const OriginalQuery = z.object({ part: z.enum(['file', 'data']).default('file') });
 
 export const UploadResponse = z.object({ id: z.number().int(), status: CaptureStatus, duplicate: z.boolean() });
 export type UploadResponse = z.infer<typeof UploadResponse>;
