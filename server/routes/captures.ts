@@ -4,13 +4,13 @@ import { mkdirSync } from 'node:fs';
 import { rm } from 'node:fs/promises';
 import path from 'node:path';
 import { pipeline } from 'node:stream/promises';
-import { CaptureListQuery, OriginalQuery, SampleRateRequest, SamplesQuery, UpdateCaptureRequest, UploadFields } from '../../shared/schemas/capture';
+import { CaptureListQuery, ComtradeValuesRequest, OriginalQuery, SampleRateRequest, SamplesQuery, UpdateCaptureRequest, UploadFields } from '../../shared/schemas/capture';
 import { IdParam } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
 import { findCaptureRow } from '../db/captureRepository';
 import { AppError, notFound } from '../errors';
 import { allow, currentUser } from '../middleware/auth';
-import { acceptUpload, captureAnalysis, captureDetail, captureList, deleteCapture, provideSampleRate, reanalyseOutdated, updateCapture } from '../services/captureService';
+import { acceptUpload, captureAnalysis, captureDetail, captureList, deleteCapture, provideSampleRate, reanalyseOutdated, setComtradeValues, updateCapture } from '../services/captureService';
 import { keptFile, originalStream } from '../services/originalFiles';
 import { sampleWindow } from '../services/sampleWindowService';
 
@@ -72,6 +72,11 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
     })
     .post('/captures/:id/sample-rate', allow('admin', 'engineer'), async (req, res) => {
       const detail = await provideSampleRate(ctx, currentUser(req), IdParam.parse(req.params).id, SampleRateRequest.parse(req.body).sampleRate);
+      onQueued();
+      res.status(202).json(detail);
+    })
+    .post('/captures/:id/comtrade-values', allow('admin', 'engineer'), async (req, res) => {
+      const detail = await setComtradeValues(ctx, currentUser(req), IdParam.parse(req.params).id, ComtradeValuesRequest.parse(req.body).values);
       onQueued();
       res.status(202).json(detail);
     })

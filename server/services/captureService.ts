@@ -124,6 +124,21 @@ export async function provideSampleRate(ctx: AppContext, user: User, id: number,
   return captureDetail(ctx, id);
 }
 
+/**
+ * Switches a COMTRADE capture between primary and secondary values: the record is read again, as a
+ * re-analysis of a ready capture (which stays readable meanwhile) or a new ingest of a failed one.
+ */
+export async function setComtradeValues(ctx: AppContext, user: User, id: number, values: 'primary' | 'secondary'): Promise<CaptureDetail> {
+  const row = await ownedCapture(ctx, user, id);
+  if (row.format !== 'comtrade') throw new AppError(409, 'not_comtrade', 'Only a COMTRADE record has primary and secondary values');
+  if (row.status === 'queued' || row.status === 'processing') throw new AppError(409, 'not_ready', 'The record is still being read; switch once it is ready');
+  await ctx.db.transaction(async (tx) => {
+    await tx.update(captures).set({ comtradeValues: values, ...(row.status === 'failed' ? { status: 'queued' as const, errorCode: null, errorMessage: null, errorLine: null } : {}) }).where(eq(captures.id, id));
+    await enqueue(tx, id, row.status === 'failed' ? 'ingest' : 'reanalyse');
+  });
+  return captureDetail(ctx, id);
+}
+
 /** Queues every ready capture analysed by an older engine for re-analysis, once each; returns how many were queued. */
 export async function reanalyseOutdated(ctx: AppContext): Promise<number> {
   const rows = await ctx.db.select({ id: captures.id, engineVersion: captures.engineVersion }).from(captures).where(eq(captures.status, 'ready'));

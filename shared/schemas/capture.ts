@@ -106,6 +106,10 @@ export const UpdateCaptureRequest = z
   .refine((v) => Object.keys(v).length > 0, 'Nothing to change');
 export type UpdateCaptureRequest = z.infer<typeof UpdateCaptureRequest>;
 
+/** Shows a COMTRADE capture's values on the other side of its instrument transformers (read again). */
+export const ComtradeValuesRequest = z.object({ values: z.enum(['primary', 'secondary']) });
+export type ComtradeValuesRequest = z.infer<typeof ComtradeValuesRequest>;
+
 export const SampleRateRequest = z.object({ sampleRate: z.number().positive().max(1e12) });
 
 export const AnalysisResponse = z.object({ engineVersion: z.number().int(), channels: z.array(ChannelAnalysis) });

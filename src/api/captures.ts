@@ -12,6 +12,7 @@ export const getCapture = (id: number) => api<CaptureDetail>('GET', `/captures/$
 export const getAnalysis = (id: number) => api<AnalysisResponse>('GET', `/captures/${id}/analysis`);
 export const deleteCapture = (id: number) => api<void>('DELETE', `/captures/${id}`);
 export const updateCapture = (id: number, req: UpdateCaptureRequest) => api<CaptureDetail>('PATCH', `/captures/${id}`, req);
+export const setComtradeValues = (id: number, values: 'primary' | 'secondary') => api<CaptureDetail>('POST', `/captures/${id}/comtrade-values`, { values });
 export const giveSampleRate = (id: number, sampleRate: number) => api<CaptureDetail>('POST', `/captures/${id}/sample-rate`, { sampleRate });
 export const getSamples = (id: number, q: { channel: number; fromS?: number; toS?: number; points: number }) =>
   api<SamplesResponse>('GET', `/captures/${id}/samples?${query(q)}`);

@@ -115,6 +115,27 @@ describe('a .cfg and its .dat in one upload', () => {
     expect(analysis[0].rms).toBeCloseTo(325 / Math.SQRT2, 1);
   });
 
+  it('a ready record switches to secondary values and back, read again each time', async () => {
+    const res = await eng.post(`/api/captures/${id}/comtrade-values`).send({ values: 'secondary' });
+    expect(res.status).toBe(202);
+    for (let i = 0; i < 300 && (await eng.get(`/api/captures/${id}`)).body.comtrade.values !== 'secondary'; i++) await new Promise((r) => setTimeout(r, 100));
+    expect((await eng.get(`/api/captures/${id}/analysis`)).body.channels[0].rms).toBeCloseTo(325 / Math.SQRT2, 1);
+    await eng.post(`/api/captures/${id}/comtrade-values`).send({ values: 'primary' });
+    for (let i = 0; i < 300 && (await eng.get(`/api/captures/${id}`)).body.comtrade.values !== 'primary'; i++) await new Promise((r) => setTimeout(r, 100));
+    expect((await eng.get(`/api/captures/${id}/analysis`)).body.channels[0].rms).toBeCloseTo(32500 / Math.SQRT2, -1);
+    // Read twice more, the trigger is still suggested once.
+    const marks = (await eng.get(`/api/captures/${id}/annotations`)).body.items.filter((m: { label: string }) => m.label === 'Trigger');
+    expect(marks).toHaveLength(1);
+  });
+
+  it('a CSV capture has no sides to switch', async () => {
+    const csv = await eng.post('/api/captures').attach('file', Buffer.from('Time (s),CH1 (V)\n0,1\n0.001,2\n0.002,1\n'), 'plain.csv');
+    await waitSettled(eng, csv.body.id);
+    const res = await eng.post(`/api/captures/${csv.body.id}/comtrade-values`).send({ values: 'secondary' });
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('not_comtrade');
+  });
+
   it('every data file type reads to the same figures', async () => {
     for (const ft of ['BINARY32', 'FLOAT32'] as const) {
       const c = await waitSettled(eng, (await upload(`north-yard-${ft}`, feeder(ft))).body.id);
