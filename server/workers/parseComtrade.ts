@@ -1,5 +1,5 @@
 import { closeSync, fstatSync, openSync, readSync, statSync } from 'node:fs';
-import { comtradeSummary, DEFAULT_COMTRADE_LIMITS, describeRecord, readCff, readComtrade, type ComtradeRecord } from '../../shared/comtrade';
+import { ComtradeError, comtradeSummary, DEFAULT_COMTRADE_LIMITS, describeRecord, readCff, readComtrade, type ComtradeRecord } from '../../shared/comtrade';
 import type { ComtradeSummary } from '../../shared/schemas/comtrade';
 import type { IngestRequest, ParsedFile } from './ingestTask';
 
@@ -48,6 +48,8 @@ function head(path: string, max: number): Uint8Array {
 /** Reads a COMTRADE record (a .cfg with its .dat, or a .cff) into the same shape as a CSV capture. */
 export function parseComtrade(req: IngestRequest, files: ComtradeFiles, chunks: (path: string) => Iterable<Uint8Array>): ParsedFile {
   const t = performance.now();
+  // The .dat of a pair was kept with it; gone now, it is named rather than taken for a .cff.
+  if (files.dataName && !files.dataFile) throw new ComtradeError({ file: files.dataName }, 'the data file of this record is missing.');
   const options = { configName: files.configName, dataName: files.dataName ?? undefined, values: files.values, limits: { maxSamples: req.limits?.maxSamples } };
   // One byte over the bound is enough for the reader to refuse an oversized .cfg without reading it all.
   const record: ComtradeRecord = files.dataFile

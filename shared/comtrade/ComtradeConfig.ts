@@ -81,5 +81,5 @@ export interface ComtradeConfig {
   timeQuality: string | null;
   leapSecond: string | null;
   /** Lines of the single-valued fields, for the file details. */
-  lines: { station: number; counts: number; frequency: number; rates: number; start: number; trigger: number; fileType: number; timeMultiplier: number | null; timeCode: number | null };
+  lines: { station: number; counts: number; frequency: number; rates: number; start: number; trigger: number; fileType: number; timeMultiplier: number | null; timeCode: number | null; timeQuality: number | null };
 }

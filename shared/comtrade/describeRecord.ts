@@ -52,7 +52,7 @@ export function describeRecord(r: ComtradeRecord): MetadataEntry[] {
   out.push({ key: 'Time multiplier', value: `${g(c.timeMultiplier)} (time stamps count in units of ${g(c.timeMultiplier)} µs)`, line: c.lines.timeMultiplier ?? c.lines.fileType });
   if (c.lines.timeCode !== null) {
     out.push({ key: 'Time code', value: `${orDash(c.timeCode ?? '')}, local ${orDash(c.localCode ?? '')}`, line: c.lines.timeCode });
-    if (c.timeQuality !== null) out.push({ key: 'Time quality', value: `${orDash(c.timeQuality)}, leap second ${orDash(c.leapSecond ?? '')}`, line: c.lines.timeCode + 1 });
+    if (c.lines.timeQuality !== null) out.push({ key: 'Time quality', value: `${orDash(c.timeQuality ?? '')}, leap second ${orDash(c.leapSecond ?? '')}`, line: c.lines.timeQuality });
   }
   return out;
 }

@@ -100,6 +100,6 @@ export function parseConfig(text: string, file: string, limits: ComtradeLimits, 
     localCode: tc ? cfg.text(tc, 1) : null,
     timeQuality: tq ? cfg.text(tq, 0) : null,
     leapSecond: tq ? cfg.text(tq, 1) : null,
-    lines: { station: head.line, counts: counts.line, frequency: lf.line, rates: nratesLine.line, start: start.line, trigger: trigger.line, fileType: ftLine.line, timeMultiplier: tm?.line ?? null, timeCode: tc?.line ?? null },
+    lines: { station: head.line, counts: counts.line, frequency: lf.line, rates: nratesLine.line, start: start.line, trigger: trigger.line, fileType: ftLine.line, timeMultiplier: tm?.line ?? null, timeCode: tc?.line ?? null, timeQuality: tq?.line ?? null },
   };
 }

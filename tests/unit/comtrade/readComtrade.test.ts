@@ -5,7 +5,7 @@
  * primary/secondary) beside each record.
  */
 import { describe, expect, it } from 'vitest';
-import { readCff, readComtrade } from '../../../shared/comtrade';
+import { describeRecord, readCff, readComtrade } from '../../../shared/comtrade';
 import { EASTFIELD_CFG, EASTFIELD_DAT, EASTFIELD_PRIMARY, EASTFIELD_SECONDARY, WESTGATE_CFG_LINES, westgateDat } from './handRecords';
 
 const bytes = (s: string) => new TextEncoder().encode(s);
@@ -62,6 +62,19 @@ describe('readComtrade', () => {
       [1, [[3, 0]]],
       [0, [[2, 1]]],
     ]);
+  });
+
+  it('the file details list each field with the line it was read from', () => {
+    const entries = describeRecord(read(WESTGATE_CFG_LINES.join('\r\n'), westgateDat()));
+    const at = (key: string) => entries.find((e) => e.key === key);
+    expect(at('Format')).toEqual({ key: 'Format', value: 'COMTRADE, IEEE C37.111-2013 (.cfg and .dat)', line: 1 });
+    expect(at('Analog A1 IN')?.line).toBe(3);
+    expect(at('Digital D2 TRIP')).toMatchObject({ line: 5, value: 'phase —, circuit Feeder 2 relay, normal state 0; starts at 0, 1 change of state' });
+    expect(at('Sample rates')).toMatchObject({ line: 7, value: 'none (nrates 0): the time stamps give the time base; 5 samples' });
+    expect(at('Trigger')).toMatchObject({ line: 10, value: '11/11/2024,09:00:00.000200000; 0.0002 s after the first sample' });
+    expect(at('Time multiplier')).toMatchObject({ line: 12, value: '10 (time stamps count in units of 10 µs)' });
+    expect(at('Time code')).toEqual({ key: 'Time code', value: '+1h, local +1h', line: 13 });
+    expect(at('Time quality')).toEqual({ key: 'Time quality', value: 'F, leap second 0', line: 14 });
   });
 
   it('2013 BINARY32 secondary: primary/secondary 400/5 divides by 80', () => {
