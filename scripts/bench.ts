@@ -3,7 +3,7 @@
  *   engine time-domain figures vs a naive loop; harmonics vs a full Bluestein transform;
  *   CSV body parsing vs csv-parse; COMTRADE binary reading vs a bare DataView loop; upload-to-ready
  *   (CSV, and a binary COMTRADE record) vs numpy scripts; peak memory of a 10 M-row
- *   ingest; samples-endpoint latency on a 10 M-sample capture.
+ *   ingest; samples-endpoint latency on a 10 M-sample capture; 20 uploads at once under 50 readers.
  * Run through `npm run bench` (it starts the benchmark database). `--quick` skips the 10 M-row steps.
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
@@ -16,6 +16,7 @@ import { CLIENT_HEADER, CLIENT_HEADER_VALUE } from '../shared/clientHeader';
 import { readComtrade } from '../shared/comtrade';
 import { readCaptureBytes } from '../shared/csv/readCaptureBytes';
 import { numpyComtradeScript, writeComtradeBinary } from './benchComtrade';
+import { runLoad } from './benchLoad';
 
 const quick = process.argv.includes('--quick');
 const part = /--part=(\w+)/.exec(process.argv.join(' '))?.[1] ?? 'all';
@@ -135,19 +136,27 @@ const size1 = await writeCsv(csv1, 1_000_000);
 // 3. Upload to ready against numpy
 const url = process.env.BENCH_DATABASE_URL;
 if (!url) throw new Error('BENCH_DATABASE_URL is not set: run `npm run bench`');
-const port = 3990;
-const base = `http://127.0.0.1:${port}`;
+// Port 0: the server takes a free port and prints it, so benches in several checkouts never collide.
 const server: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-  env: { ...process.env, DATABASE_URL: url, PORT: String(port), SERVE_CLIENT: '0', SEED_DEMO: '0', DATA_DIR: path.join(work, 'data'), ADMIN_EMAIL: 'bench@bench.example', ADMIN_PASSWORD: 'bench-password-1', BCRYPT_COST: '4' },
-  stdio: ['ignore', process.env.CRESTLINE_TRACE ? 'inherit' : 'ignore', 'inherit'],
+  env: { ...process.env, DATABASE_URL: url, PORT: '0', HOST: '127.0.0.1', SERVE_CLIENT: '0', SEED_DEMO: '0', DATA_DIR: path.join(work, 'data'), ADMIN_EMAIL: 'bench@bench.example', ADMIN_PASSWORD: 'bench-password-1', BCRYPT_COST: '4' },
+  stdio: ['ignore', 'pipe', 'inherit'],
 });
 const stopServer = () => server.kill('SIGINT');
 process.on('exit', stopServer);
-for (let i = 0; i < 300; i++) {
-  const ok = await fetch(`${base}/api/health`).then((r) => r.ok).catch(() => false);
-  if (ok) break;
-  await new Promise((r) => setTimeout(r, 100));
-}
+const base = await new Promise<string>((resolve, reject) => {
+  let printed = '';
+  const timer = setTimeout(() => reject(new Error(`the bench server did not start within 60 s:\n${printed}`)), 60_000);
+  server.stdout?.on('data', (chunk: Buffer) => {
+    if (process.env.CRESTLINE_TRACE) process.stdout.write(chunk);
+    printed += chunk.toString();
+    const ready = /Crestline is ready: (http:\S+)/.exec(printed);
+    if (ready) {
+      clearTimeout(timer);
+      resolve(ready[1]);
+    }
+  });
+  server.on('exit', (code) => reject(new Error(`the bench server exited (${code}):\n${printed}`)));
+});
 // Sign-ins and uploads must show they come from Crestline's own client (the server's origin check).
 const asClient = { [CLIENT_HEADER]: CLIENT_HEADER_VALUE };
 const login = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', ...asClient }, body: JSON.stringify({ email: 'bench@bench.example', password: 'bench-password-1' }) });
@@ -169,14 +178,17 @@ async function uploadAndWait(file: string, name: string, data?: string): Promise
     await new Promise((r) => setTimeout(r, 20));
   }
 }
+// Ready captures and their durations in seconds, for the readers of the load step.
+const readyCaptures = new Map<number, number>();
 // A running server has parsed files before: warm the worker thread's JIT with two mid-sized files
 // first, so the figure is that of a server in use rather than of its first file.
 for (const rows of [300_000, 300_001]) {
   const warm = path.join(work, `warm-${rows}.csv`);
   await writeCsv(warm, rows);
-  await uploadAndWait(warm, `warm-${rows}.csv`);
+  readyCaptures.set((await uploadAndWait(warm, `warm-${rows}.csv`)).id, rows / 1e6);
 }
 const upload = await uploadAndWait(csv1, 'one-million.csv');
+readyCaptures.set(upload.id, 1);
 const numpyScript = `
 import time, numpy as np, sys
 t = time.perf_counter()
@@ -231,6 +243,12 @@ if (!quick) {
   }
   times.sort((a, b) => a - b);
   line('samples endpoint, 10 M samples, 40 zoom windows', `median ${times[20].toFixed(1)} ms`, `worst ${times[39].toFixed(1)} ms (target < 50 ms)`);
+  readyCaptures.set(big.id, duration);
 }
+
+// 5. Under load (after the peak-memory figure, which it would otherwise raise)
+const loadOk = await runLoad({ base, cookie, databaseUrl: url, work, ready: readyCaptures, writeCsv, line });
 stopServer();
 rmSync(work, { recursive: true, force: true });
+// Errors under load are a failure to look into, not a figure: the bench says so by its exit status.
+if (!loadOk) process.exitCode = 1;

@@ -8,13 +8,17 @@ import { AppError, errorHandler } from './errors';
 import { requireSession } from './middleware/auth';
 import { retryAfterHeader } from './middleware/requestLimits';
 import { sameOriginForSessions } from './middleware/sameOrigin';
+import { projectScopes } from './middleware/projectScopes';
 import { accountLinkRoutes } from './routes/accountLinks';
 import { adminMailRoutes } from './routes/adminMail';
+import { apiTokenRoutes } from './routes/apiTokens';
 import { annotationRoutes } from './routes/annotations';
 import { authRoutes } from './routes/auth';
 import { comparisonRoutes } from './routes/comparisons';
 import { captureRoutes } from './routes/captures';
+import { captureSetupRoutes } from './routes/captureSetup';
 import { healthRoutes } from './routes/health';
+import { projectMemberRoutes } from './routes/projectMembers';
 import { projectRoutes } from './routes/projects';
 import { sharedRoutes, shareRoutes } from './routes/shares';
 import { userRoutes } from './routes/users';
@@ -57,10 +61,16 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   api.use(accountLinkRoutes(ctx));
   // Everything below needs a signed-in user.
   api.use(requireSession(ctx));
+  // Before any route: ids of projects, captures, comparisons, annotations and shares hidden from the
+  // user answer 404, and allow() checks the user's role in the project concerned.
+  api.use(projectScopes(ctx));
   api.use(userRoutes(ctx));
+  api.use(apiTokenRoutes(ctx));
   const onQueued = hooks.onCaptureQueued ?? (() => undefined);
   api.use(projectRoutes(ctx, onQueued));
+  api.use(projectMemberRoutes(ctx));
   api.use(captureRoutes(ctx, onQueued));
+  api.use(captureSetupRoutes(ctx, onQueued));
   api.use(annotationRoutes(ctx));
   api.use(comparisonRoutes(ctx));
   api.use(shareRoutes(ctx));

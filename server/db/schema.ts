@@ -14,7 +14,10 @@ import {
   timestamp,
   varchar,
 } from 'drizzle-orm/mysql-core';
+import type { ChannelSetup } from '../../shared/schemas/channelSetup';
 import type { ComtradeSummary } from '../../shared/schemas/comtrade';
+import type { PowerQuality } from '../../shared/schemas/powerQuality';
+import type { SystemSpec } from '../../shared/schemas/threePhase';
 
 /** Binary sample data: Buffer in, Buffer out. */
 const longblob = customType<{ data: Buffer; driverData: Buffer }>({
@@ -29,6 +32,9 @@ const id = () => bigint('id', { mode: 'number', unsigned: true }).autoincrement(
 
 /** A foreign key to an id: unsigned bigint, never serial (which would mean AUTO_INCREMENT). */
 const ref = (name: string) => bigint(name, { mode: 'number', unsigned: true });
+
+export const projectVisibility = ['team', 'members'] as const;
+export const memberRoles = ['engineer', 'viewer'] as const;
 
 export const users = mysqlTable('users', {
   id: id(),
@@ -45,11 +51,31 @@ export const projects = mysqlTable('projects', {
   name: varchar('name', { length: 160 }).notNull(),
   description: text('description').notNull(),
   archived: boolean('archived').notNull().default(false),
+  /** 'team': every signed-in user sees it (by their role). 'members': only its members, its creator and admins. */
+  visibility: mysqlEnum('visibility', projectVisibility).notNull().default('team'),
+  /** The declared supply voltage (V) for the project's captures, unless a capture has its own. */
+  declaredVoltage: double('declared_voltage'),
   createdBy: ref('created_by').references(() => users.id),
   /** Set on the project that receives a user's uploads when none is named. */
   defaultFor: ref('default_for').unique().references(() => users.id),
   createdAt: timestamp('created_at').notNull().defaultNow(),
 });
+
+/**
+ * Who may see a members-only project, and with what role in it. The role never lifts anyone above
+ * their own role: a viewer stays a viewer whatever the project says.
+ */
+export const projectMembers = mysqlTable(
+  'project_members',
+  {
+    projectId: ref('project_id').notNull().references(() => projects.id, { onDelete: 'cascade' }),
+    userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    role: mysqlEnum('role', memberRoles).notNull(),
+    addedBy: ref('added_by').references(() => users.id),
+    addedAt: timestamp('added_at').notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.projectId, t.userId] }), index('project_members_user').on(t.userId)],
+);
 
 export const captureStatus = ['queued', 'processing', 'ready', 'failed'] as const;
 
@@ -71,7 +97,7 @@ export const captures = mysqlTable(
     originalPath: varchar('original_path', { length: 255 }),
     /** 'comtrade': a COMTRADE record, its .cfg (or .cff) at originalPath and its .dat at dataPath. */
     format: mysqlEnum('format', ['csv', 'comtrade']).notNull().default('csv'),
-    /** The .dat kept beside a .cfg, relative to DATA_DIR (gzip-compressed once ready), and its uploaded name. */
+    /** The .dat kept beside a .cfg, relative to where originals are kept (gzip-compressed once ready), and its uploaded name. */
     dataPath: varchar('data_path', { length: 255 }),
     dataName: varchar('data_name', { length: 255 }),
     /** COMTRADE values on the primary or secondary side of the instrument transformers, as asked at upload. */
@@ -87,6 +113,14 @@ export const captures = mysqlTable(
     metadata: json('metadata'),
     tags: json('tags').$type<string[]>().notNull().default(sql`('[]')`),
     engineVersion: int('engine_version'),
+    /** How each channel is turned into engineering units; applied to the file's values at every (re-)analysis. */
+    channelSetup: json('channel_setup').$type<ChannelSetup[]>().notNull().default(sql`('[]')`),
+    /** Three-phase sets as a user stated them; null: found automatically. */
+    systems: json('systems').$type<SystemSpec[] | null>(),
+    /** The declared supply voltage (V) for dips and swells; null: the project's, else a suggestion. */
+    declaredVoltage: double('declared_voltage'),
+    /** Three-phase systems and voltage events of the last analysis. */
+    powerQuality: json('power_quality').$type<PowerQuality>(),
     createdAt: timestamp('created_at').notNull().defaultNow(),
     readyAt: timestamp('ready_at'),
   },
@@ -270,3 +304,42 @@ export const rateCounters = mysqlTable('rate_counters', {
   /** For spaced attempts (one account's sign-ins): the next attempt is answered only from this time on. */
   nextAllowedAt: timestamp('next_allowed_at', { fsp: 3 }),
 });
+
+/**
+ * API tokens for scripts and test rigs (`Authorization: Bearer crl_…`). Only the SHA-256 of a token is
+ * kept; it is looked up by that hash, so comparing never runs over secret bytes one by one.
+ */
+export const apiTokens = mysqlTable(
+  'api_tokens',
+  {
+    id: id(),
+    userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 120 }).notNull(),
+    tokenHash: varchar('token_hash', { length: 64 }).notNull().unique(),
+    /** The token's last four characters, so its owner can tell tokens apart; 168 random bits stay unknown. */
+    hint: varchar('hint', { length: 8 }).notNull(),
+    readOnly: boolean('read_only').notNull().default(false),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    /** Updated at most once a minute, so a busy rig does not write on every request. */
+    lastUsedAt: timestamp('last_used_at'),
+    expiresAt: timestamp('expires_at').notNull(),
+  },
+  (t) => [index('api_tokens_user').on(t.userId)],
+);
+
+/** A project's named probes and clamps, applied to a channel in one click (e.g. "clamp 100 mV/A → A"). */
+export const probePresets = mysqlTable(
+  'probe_presets',
+  {
+    id: id(),
+    projectId: ref('project_id').notNull().references(() => projects.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 80 }).notNull(),
+    unit: varchar('unit', { length: 8 }).notNull(),
+    scale: double('scale').notNull(),
+    offset: double('offset').notNull().default(0),
+    invert: boolean('invert').notNull().default(false),
+    createdBy: ref('created_by').references(() => users.id),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [index('probe_presets_project').on(t.projectId)],
+);

@@ -79,6 +79,7 @@ export function storeReady(db: Db, job: ClaimedJob, workerId: string, r: IngestR
           metadata: r.metadata,
           comtrade: r.comtrade ?? null,
           engineVersion: r.engineVersion,
+          powerQuality: { systems: r.systems, voltageEvents: r.channels.flatMap((c, channel) => (c.voltageEvents ? [{ channel, ...c.voltageEvents }] : [])) },
           readyAt: sql`NOW()`,
         })
         .where(eq(captures.id, job.captureId));

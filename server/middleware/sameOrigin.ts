@@ -2,6 +2,7 @@ import type { Request, RequestHandler } from 'express';
 import { CLIENT_HEADER, CLIENT_HEADER_VALUE } from '../../shared/clientHeader';
 import type { AppContext } from '../context';
 import { AppError } from '../errors';
+import { bearerToken } from './bearer';
 import { SESSION_COOKIE } from '../services/sessionTokens';
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
@@ -18,12 +19,13 @@ function originOf(url: string): string | null {
 }
 
 /**
- * Requests whose credential a browser cannot attach on its own need no origin check. Nothing
- * authenticates that way yet: when API tokens arrive (`Authorization: Bearer …`), answer true for
- * them here, and make sure requireSession then ignores any cookie on the same request.
+ * Requests whose credential a browser cannot attach on its own need no origin check: those with an
+ * API token (`Authorization: Bearer …`, a header another site's page cannot set without a CORS
+ * preflight, which Crestline never grants). requireSession then ignores any cookie on the same
+ * request, so the cookie cannot ride along unchecked.
  */
-function carriesOwnCredential(_req: Request): boolean {
-  return false;
+function carriesOwnCredential(req: Request): boolean {
+  return bearerToken(req) !== null;
 }
 
 /**

@@ -1,14 +1,17 @@
 import { Router } from 'express';
 import { SamplesQuery } from '../../shared/schemas/capture';
+import { TrendQuery } from '../../shared/schemas/powerQuality';
 import { CreateShareRequest } from '../../shared/schemas/share';
 import { IdParam } from '../../shared/schemas/user';
 import { z } from 'zod';
 import type { AppContext } from '../context';
-import { AppError } from '../errors';
+import { sendSamples } from './sendSamples';
+import { AppError, notFound } from '../errors';
 import { allow, currentUser } from '../middleware/auth';
 import { clientAddress, limitRequests } from '../middleware/requestLimits';
 import { hashSecretToken } from '../services/secretTokens';
-import { createShare, liveShares, revokeShare, sharedSamples, sharedView } from '../services/shareService';
+import { channelTrend } from '../services/trendService';
+import { createShare, liveShares, revokeShare, sharedCaptureIds, sharedSamples, sharedView } from '../services/shareService';
 
 /** Creating, listing and revoking links: signed-in engineers and admins. */
 export function shareRoutes(ctx: AppContext): Router {
@@ -65,7 +68,12 @@ export function sharedRoutes(ctx: AppContext): Router {
     })
     .get('/shared/:token/captures/:captureId/samples', async (req, res) => {
       const { token, captureId } = TokenCaptureParams.parse(req.params);
-      res.json(await sharedSamples(ctx, token, captureId, SamplesQuery.parse(req.query)));
+      sendSamples(req, res, await sharedSamples(ctx, token, captureId, SamplesQuery.parse(req.query)));
+    })
+    .get('/shared/:token/captures/:captureId/trend', async (req, res) => {
+      const { token, captureId } = TokenCaptureParams.parse(req.params);
+      if (!(await sharedCaptureIds(ctx, token)).includes(captureId)) throw notFound('This shared capture');
+      res.json(await channelTrend(ctx, captureId, TrendQuery.parse(req.query)));
     })
     .all(['/shared/:token', '/shared/:token/{*rest}'], () => {
       throw new AppError(405, 'read_only', 'A shared link is read-only');

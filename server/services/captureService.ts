@@ -4,7 +4,7 @@ import { ENGINE_VERSION } from '../../shared/analysis';
 import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, UpdateCaptureRequest, UploadFields, UploadResponse } from '../../shared/schemas/capture';
 import type { User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
-import { channelAnalyses, findCaptureBySha, findCaptureDetail, findCaptureRow, listCaptures } from '../db/captureRepository';
+import { channelAnalyses, powerQualityOf, findCaptureBySha, findCaptureDetail, findCaptureRow, listCaptures } from '../db/captureRepository';
 import { findProject } from '../db/projectRepository';
 import { captures } from '../db/schema';
 import { AppError, forbidden, notFound } from '../errors';
@@ -12,27 +12,33 @@ import { enqueue } from '../jobs/jobQueue';
 import { keepOriginal, removeCaptureFiles, sha256OfFile } from './originalFiles';
 import { defaultProjectId } from './projectService';
 import { uploadFormat } from './uploadFormat';
+import { requireRoleIn, visibleProject } from './visibility';
 
 export interface UploadedFile {
   path: string;
   originalname: string;
   size: number;
+  /** Taken while the upload streamed in (hashingDiskStorage); computed here when absent. */
+  sha256?: string;
 }
 
 /**
  * Takes an uploaded file: files it under the named (or the uploader's default) project, recognises a
  * second upload of the same bytes to that project as the existing capture, keeps the original, and queues it for processing, all before
  * answering, so the upload returns at once whatever the file's size. A COMTRADE .cfg comes with its
- * .dat (`data`): both are kept, and their bytes one after the other make the SHA-256.
+ * .dat (`data`): both are kept, and their bytes one after the other make the SHA-256 (read again here:
+ * the hashes taken while each streamed in cannot be joined).
  */
 export async function acceptUpload(ctx: AppContext, user: User, file: UploadedFile, fields: UploadFields, data: UploadedFile | null = null): Promise<UploadResponse> {
   try {
     const kind = uploadFormat(file.originalname, data?.originalname ?? null);
     const projectId = fields.projectId ?? (await defaultProjectId(ctx, user.id, user.name));
+    // The project is named in the form, not the path, so projectScopes has not seen it.
+    requireRoleIn(await visibleProject(ctx, user, projectId), 'admin', 'engineer');
     const project = await findProject(ctx.db, projectId);
     if (!project) throw notFound('Project');
     if (project.archived) throw new AppError(409, 'project_archived', 'That project is archived; restore it before adding captures');
-    const sha256 = data ? await sha256OfFile(file.path, data.path) : await sha256OfFile(file.path);
+    const sha256 = data ? await sha256OfFile(file.path, data.path) : (file.sha256 ?? (await sha256OfFile(file.path)));
     const existing = await findCaptureBySha(ctx.db, projectId, sha256);
     if (existing) return { id: existing.id, status: existing.status, duplicate: true };
     const name = fields.name || file.originalname.replace(/\.[^.]+$/, '') || 'Capture';
@@ -49,6 +55,7 @@ export async function acceptUpload(ctx: AppContext, user: User, file: UploadedFi
             sha256,
             sizeBytes: file.size + (data?.size ?? 0),
             sampleRateHint: fields.sampleRate ?? null,
+            channelSetup: fields.channelSetup ?? [],
             format: kind.format,
             dataName: data?.originalname.slice(0, 255) ?? null,
             comtradeValues: kind.format === 'comtrade' ? (fields.comtradeValues ?? 'primary') : null,
@@ -72,8 +79,8 @@ export async function acceptUpload(ctx: AppContext, user: User, file: UploadedFi
   }
 }
 
-export async function captureList(ctx: AppContext, q: CaptureListQuery): Promise<CaptureList> {
-  const { items, total } = await listCaptures(ctx.db, q);
+export async function captureList(ctx: AppContext, user: User, q: CaptureListQuery): Promise<CaptureList> {
+  const { items, total } = await listCaptures(ctx.db, q, user);
   return { items, total, page: q.page, pageSize: q.pageSize };
 }
 
@@ -89,11 +96,12 @@ export async function captureAnalysis(ctx: AppContext, id: number): Promise<Anal
   if (row.status !== 'ready') {
     throw new AppError(409, 'not_ready', row.status === 'failed' ? `The capture failed: ${row.errorMessage}` : `The capture is ${row.status}; its analysis is not ready yet`);
   }
-  return { engineVersion: row.engineVersion ?? 0, channels: (await channelAnalyses(ctx.db, id)) as AnalysisResponse['channels'] };
+  const { systems, voltageEvents } = await powerQualityOf(ctx.db, id);
+  return { engineVersion: row.engineVersion ?? 0, channels: (await channelAnalyses(ctx.db, id)) as AnalysisResponse['channels'], systems, voltageEvents };
 }
 
 /** Only the uploader or an admin may change or delete a capture. */
-async function ownedCapture(ctx: AppContext, user: User, id: number) {
+export async function ownedCapture(ctx: AppContext, user: User, id: number) {
   const row = await findCaptureRow(ctx.db, id);
   if (!row) throw notFound('Capture');
   if (user.role !== 'admin' && row.uploadedBy !== user.id) throw forbidden('Only its uploader or an admin may change this capture');

@@ -1,6 +1,6 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { createReadStream, createWriteStream } from 'node:fs';
-import { link, mkdir, readdir, rename, rm } from 'node:fs/promises';
+import { copyFile, link, mkdir, readdir, rename, rm } from 'node:fs/promises';
 import path from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import { createGunzip, createGzip } from 'node:zlib';
@@ -17,11 +17,25 @@ export async function sha256OfFile(...files: string[]): Promise<string> {
   return hash.digest('hex');
 }
 
-/** Moves an upload into the originals folder as `<id>.<extension>`; returns its path relative to DATA_DIR. */
+/** Where kept originals live: FILES_DIR (shared by every process), else DATA_DIR. */
+export const filesRoot = (ctx: AppContext) => ctx.config.FILES_DIR ?? ctx.config.DATA_DIR;
+
+/** Renames, or copies where the two folders are on different file systems (a shared FILES_DIR mount). */
+async function moveFile(from: string, to: string): Promise<void> {
+  try {
+    await rename(from, to);
+  } catch (err) {
+    if ((err as NodeJS.ErrnoException).code !== 'EXDEV') throw err;
+    await copyFile(from, to);
+    await rm(from, { force: true });
+  }
+}
+
+/** Moves an upload into the originals folder as `<id>.<extension>`; returns its path relative to filesRoot. */
 export async function keepOriginal(ctx: AppContext, tempFile: string, captureId: number, extension = 'csv'): Promise<string> {
   const relative = path.join(ORIGINALS_DIR, `${captureId}.${extension}`);
-  await mkdir(path.join(ctx.config.DATA_DIR, ORIGINALS_DIR), { recursive: true });
-  await rename(tempFile, path.join(ctx.config.DATA_DIR, relative));
+  await mkdir(path.join(filesRoot(ctx), ORIGINALS_DIR), { recursive: true });
+  await moveFile(tempFile, path.join(filesRoot(ctx), relative));
   return relative;
 }
 
@@ -47,12 +61,12 @@ async function compressKept(ctx: AppContext, captureId: number, column: KeptFile
   const [row] = await ctx.db.select({ kept: captures[column] }).from(captures).where(eq(captures.id, captureId));
   if (!row?.kept || row.kept.endsWith('.gz')) return;
   const plain = row.kept;
-  const source = path.join(ctx.config.DATA_DIR, plain);
+  const source = path.join(filesRoot(ctx), plain);
   const target = `${plain}.gz`;
-  const partial = path.join(ctx.config.DATA_DIR, `${target}.${randomBytes(4).toString('hex')}.part`);
+  const partial = path.join(filesRoot(ctx), `${target}.${randomBytes(4).toString('hex')}.part`);
   try {
     await pipeline(createReadStream(source), createGzip({ level: 6 }), createWriteStream(partial, { mode: 0o600 }));
-    await rename(partial, path.join(ctx.config.DATA_DIR, target));
+    await rename(partial, path.join(filesRoot(ctx), target));
   } catch (err) {
     await rm(partial, { force: true });
     // A file went away: another run compressed it, or the capture was deleted (with its files).
@@ -74,7 +88,7 @@ async function compressKept(ctx: AppContext, captureId: number, column: KeptFile
 
 /** Removes every file kept for a capture (`<id>.csv`, `.cfg`, `.dat`, `.cff`, plain or compressed); call after the delete committed. */
 export async function removeCaptureFiles(ctx: AppContext, captureId: number): Promise<void> {
-  const dir = path.join(ctx.config.DATA_DIR, ORIGINALS_DIR);
+  const dir = path.join(filesRoot(ctx), ORIGINALS_DIR);
   const prefix = `${captureId}.`;
   const names = await readdir(dir).catch(() => [] as string[]);
   await Promise.all(names.filter((n) => n.startsWith(prefix)).map((n) => rm(path.join(dir, n), { force: true })));
@@ -105,11 +119,11 @@ async function readableCopy(ctx: AppContext, captureId: number, column: KeptFile
   for (let attempt = 1; ; attempt++) {
     const [row] = await ctx.db.select({ kept: captures[column] }).from(captures).where(eq(captures.id, captureId));
     if (!row?.kept) return null;
-    const source = path.join(ctx.config.DATA_DIR, row.kept);
+    const source = path.join(filesRoot(ctx), row.kept);
     const tmp = path.join(tmpDir, `${captureId}-${randomBytes(6).toString('hex')}.tmp`);
     try {
       if (row.kept.endsWith('.gz')) await pipeline(createReadStream(source), createGunzip(), createWriteStream(tmp, { mode: 0o600 }));
-      else await link(source, tmp);
+      else await link(source, tmp).catch((err: NodeJS.ErrnoException) => (err.code === 'EXDEV' ? copyFile(source, tmp) : Promise.reject(err)));
       return tmp;
     } catch (err) {
       await rm(tmp, { force: true });
@@ -120,7 +134,7 @@ async function readableCopy(ctx: AppContext, captureId: number, column: KeptFile
 
 /** The original as a stream of its text, whether kept plain or compressed. */
 export function originalStream(ctx: AppContext, relative: string): NodeJS.ReadableStream {
-  const raw = createReadStream(path.join(ctx.config.DATA_DIR, relative));
+  const raw = createReadStream(path.join(filesRoot(ctx), relative));
   return relative.endsWith('.gz') ? raw.pipe(createGunzip()) : raw;
 }
 

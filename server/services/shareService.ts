@@ -1,5 +1,5 @@
 import { and, desc, eq, gt, isNull, sql } from 'drizzle-orm';
-import type { SamplesQuery, SamplesResponse } from '../../shared/schemas/capture';
+import type { SamplesQuery } from '../../shared/schemas/capture';
 import { SHARED_MAX_POINTS, type CreateShareRequest, type ShareCreated, type ShareInfo, type SharedView } from '../../shared/schemas/share';
 import type { User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
@@ -9,7 +9,8 @@ import { shareMail } from '../mail/messages';
 import { listAnnotations } from './annotationService';
 import { captureAnalysis, captureDetail } from './captureService';
 import { getComparison } from './comparisonService';
-import { sampleWindow } from './sampleWindowService';
+import { sampleWindowData } from './sampleWindowService';
+import type { SampleWindowData } from '../../shared/samples/samplesBinary';
 import { hashSecretToken, newSecretToken, sameHash } from './secretTokens';
 
 export type ShareTarget = { captureId: number } | { comparisonId: number };
@@ -86,7 +87,7 @@ export async function sharedCaptureIds(ctx: AppContext, token: string): Promise<
 }
 
 /** Samples of a capture the token opens, at most SHARED_MAX_POINTS of them (a larger `points` is lowered, not refused, so the shared page keeps working). */
-export async function sharedSamples(ctx: AppContext, token: string, captureId: number, q: SamplesQuery): Promise<SamplesResponse> {
+export async function sharedSamples(ctx: AppContext, token: string, captureId: number, q: SamplesQuery): Promise<SampleWindowData> {
   if (!(await sharedCaptureIds(ctx, token)).includes(captureId)) throw notFound('This shared capture');
-  return sampleWindow(ctx, captureId, { ...q, points: Math.min(q.points, SHARED_MAX_POINTS) });
+  return sampleWindowData(ctx, captureId, { ...q, points: Math.min(q.points, SHARED_MAX_POINTS) });
 }

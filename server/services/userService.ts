@@ -1,6 +1,7 @@
 import bcrypt from 'bcryptjs';
 import type { CreateUserRequest, UpdateUserRequest, User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
+import { deleteUserTokens } from '../db/apiTokenRepository';
 import { findUserByEmail, findUserById, insertUser, listUsers, updateUser } from '../db/userRepository';
 import { AppError, notFound } from '../errors';
 import { endAllSessions } from './sessionService';
@@ -25,8 +26,12 @@ export async function changeUser(ctx: AppContext, actorId: number, id: number, r
     throw new AppError(400, 'self_lockout', 'You cannot deactivate yourself or give up your own admin role');
   }
   await updateUser(ctx.db, id, req);
-  // Refused on every request anyway while inactive; ending the sessions means reactivating does not revive them.
-  if (req.active === false) await endAllSessions(ctx, id);
+  // Refused on every request anyway while inactive; ending the sessions and tokens means reactivating
+  // does not revive them.
+  if (req.active === false) {
+    await endAllSessions(ctx, id);
+    await deleteUserTokens(ctx.db, id);
+  }
   return publicUser({ ...user, ...req });
 }
 

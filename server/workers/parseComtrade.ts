@@ -45,15 +45,15 @@ function head(path: string, max: number): Uint8Array {
   }
 }
 
-/** Reads a COMTRADE record (a .cfg with its .dat, or a .cff) into the same shape as a CSV capture. */
-export function parseComtrade(req: IngestRequest, files: ComtradeFiles, chunks: (path: string) => Iterable<Uint8Array>): ParsedFile {
+/** Reads a COMTRADE record (a .cfg with its .dat, or a .cff) into the same shape as a CSV capture, before channel setups and three-phase systems. */
+export function parseComtrade(req: IngestRequest, files: ComtradeFiles, chunks: (path: string) => Iterable<Uint8Array>): Omit<ParsedFile, 'systems'> {
   const t = performance.now();
   // The .dat of a pair was kept with it; gone now, it is named rather than taken for a .cff.
   if (files.dataName && !files.dataFile) throw new ComtradeError({ file: files.dataName }, 'the data file of this record is missing.');
-  const options = { configName: files.configName, dataName: files.dataName ?? undefined, values: files.values, limits: { maxSamples: req.limits?.maxSamples } };
+  const options = { configName: files.configName, dataName: files.dataName ?? undefined, values: files.values, limits: req.limits };
   // One byte over the bound is enough for the reader to refuse an oversized .cfg without reading it all.
   const record: ComtradeRecord = files.dataFile
-    ? readComtrade(head(req.file, DEFAULT_COMTRADE_LIMITS.maxConfigBytes + 1), chunks(files.dataFile), statSync(files.dataFile).size, options)
+    ? readComtrade(head(req.file, (req.limits?.maxHeadBytes ?? DEFAULT_COMTRADE_LIMITS.maxHeadBytes) + 1), chunks(files.dataFile), statSync(files.dataFile).size, options)
     : readCff(chunks(req.file), statSync(req.file).size, options);
   if (process.env.CRESTLINE_TRACE) console.log(`  reading COMTRADE ${(performance.now() - t).toFixed(0)} ms`);
   const tb = record.timeBase;

@@ -35,7 +35,8 @@ export function analyzeValidSpan(x: Samples, sampleRate: number, settings: Analy
     };
   }
   const t0 = (settings.t0 ?? 0) + bestStart / sampleRate;
-  const analysis = analyzeChannel(x.subarray(bestStart, bestStart + bestLength), sampleRate, { ...settings, t0 });
+  // The record's clipping search covered the whole record, not this stretch: it is done again here.
+  const analysis = analyzeChannel(x.subarray(bestStart, bestStart + bestLength), sampleRate, { ...settings, t0, clipping: undefined });
   analysis.window.startIndex += bestStart;
   analysis.warnings.unshift({
     code: 'invalidSamples',

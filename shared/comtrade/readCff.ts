@@ -22,7 +22,7 @@ export function readCff(chunks: Iterable<Uint8Array>, totalBytes: number, option
   const values = options.values ?? 'primary';
   const file = options.configName;
   // The text sections may hold a long header (HDR) besides the configuration.
-  const sections = new CffSections(file, 4 * limits.maxConfigBytes);
+  const sections = new CffSections(file, 4 * limits.maxHeadBytes);
   const iterator = chunks[Symbol.iterator]();
   let found: ReturnType<CffSections['push']> = null;
   while (!found) {

@@ -19,7 +19,7 @@ export interface ComtradeReadOptions {
 
 /** Decodes .cfg bytes as UTF-8 (the 2013 edition's encoding, from memory; plain ASCII for 1999), after the size and text checks. */
 export function configText(bytes: Uint8Array, file: string, limits: ComtradeLimits): string {
-  if (bytes.length > limits.maxConfigBytes) throw new ComtradeError({ file }, `the configuration is ${bytes.length.toLocaleString('en-US')} bytes; Crestline reads at most ${limits.maxConfigBytes.toLocaleString('en-US')}.`);
+  if (bytes.length > limits.maxHeadBytes) throw new ComtradeError({ file }, `the configuration is ${bytes.length.toLocaleString('en-US')} bytes; Crestline reads at most ${limits.maxHeadBytes.toLocaleString('en-US')}.`);
   const nul = bytes.indexOf(0);
   if (nul >= 0) throw new ComtradeError({ file, offset: nul }, 'the configuration is not text (it holds a zero byte): is it the .dat?');
   const bom = bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? 3 : 0;

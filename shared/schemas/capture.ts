@@ -1,5 +1,8 @@
 import { z } from 'zod';
 import { ChannelAnalysis } from './analysis';
+import { ChannelSetup, UploadChannelSetupField } from './channelSetup';
+import { ChannelVoltageEvents } from './powerQuality';
+import { SystemSpec, ThreePhaseSystem } from './threePhase';
 import { ComtradeSummary } from './comtrade';
 
 export const CaptureStatus = z.enum(['queued', 'processing', 'ready', 'failed']);
@@ -63,6 +66,13 @@ export const CaptureDetail = CaptureSummary.extend({
   metadata: z.array(z.object({ key: z.string(), value: z.string(), line: z.number().int() })),
   engineVersion: z.number().int().nullable(),
   readyAt: z.string().nullable(),
+  /** How channels are turned into engineering units (the file itself is never changed). */
+  channelSetup: z.array(ChannelSetup),
+  /** Three-phase sets as a user stated them, or null when they are found automatically. */
+  systemsSpec: z.array(SystemSpec).nullable(),
+  declaredVoltage: z.number().nullable(),
+  /** A re-analysis is queued or running; the figures shown are the last good ones until it is done. */
+  reanalysing: z.boolean(),
   /** 'comtrade': originalName is the .cfg (or .cff), dataName the .dat beside it. */
   format: z.enum(['csv', 'comtrade']),
   dataName: z.string().nullable(),
@@ -90,6 +100,8 @@ export const UploadFields = z.object({
   name: z.string().trim().max(200).optional(),
   projectId: z.coerce.number().int().positive().optional(),
   sampleRate: z.coerce.number().positive().optional(),
+  /** JSON: channel setups to apply from the first analysis on (UploadChannelSetup). */
+  channelSetup: UploadChannelSetupField.optional(),
   /** For a COMTRADE record: values on the primary (default) or secondary side of the instrument transformers. */
   comtradeValues: z.enum(['primary', 'secondary']).optional(),
 });
@@ -112,7 +124,14 @@ export type ComtradeValuesRequest = z.infer<typeof ComtradeValuesRequest>;
 
 export const SampleRateRequest = z.object({ sampleRate: z.number().positive().max(1e12) });
 
-export const AnalysisResponse = z.object({ engineVersion: z.number().int(), channels: z.array(ChannelAnalysis) });
+export const AnalysisResponse = z.object({
+  engineVersion: z.number().int(),
+  channels: z.array(ChannelAnalysis),
+  /** Three-phase sets and their figures. */
+  systems: z.array(ThreePhaseSystem),
+  /** Dips, swells and interruptions of each voltage channel against its declared voltage. */
+  voltageEvents: z.array(ChannelVoltageEvents),
+});
 export type AnalysisResponse = z.infer<typeof AnalysisResponse>;
 
 export const SamplesQuery = z.object({

@@ -19,7 +19,7 @@ export const getSamples = (id: number, q: { channel: number; fromS?: number; toS
 export const originalUrl = (id: number) => `/api/captures/${id}/original`;
 
 /** Uploads one file (or a COMTRADE .cfg with its .dat in `data`) with progress (fetch cannot report upload progress, XMLHttpRequest can). */
-export function uploadCapture(file: File, fields: { projectId?: number; name?: string; data?: File }, onProgress: (fraction: number) => void): Promise<UploadResponse> {
+export function uploadCapture(file: File, fields: { projectId?: number; name?: string; channelSetup?: string; data?: File }, onProgress: (fraction: number) => void): Promise<UploadResponse> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', '/api/captures');
@@ -34,6 +34,7 @@ export function uploadCapture(file: File, fields: { projectId?: number; name?: s
     const form = new FormData();
     if (fields.projectId) form.append('projectId', String(fields.projectId));
     if (fields.name) form.append('name', fields.name);
+    if (fields.channelSetup) form.append('channelSetup', fields.channelSetup);
     form.append('file', file);
     if (fields.data) form.append('data', fields.data);
     xhr.send(form);

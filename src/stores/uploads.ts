@@ -46,14 +46,15 @@ export const useUploadsStore = defineStore('uploads', () => {
     listeners.forEach((fn) => fn(item));
   }
 
-  async function add(files: File[], projectId: number) {
+  /** `channelSetup`: JSON of setups applied from the first analysis on (a probe preset chosen at upload). */
+  async function add(files: File[], projectId: number, channelSetup?: string) {
     for (const { file, data, refused, note } of uploadGroups(files)) {
       const fileName = data ? `${file.name} + ${data.name}` : file.name;
       const item = ref<UploadItem>({ key: nextKey++, fileName, projectId, progress: 0, captureId: null, status: refused ? 'failed' : 'uploading', duplicate: false, message: refused ?? note ?? '' }).value;
       items.value.unshift(item);
       if (refused) continue;
       const tracked = items.value[0];
-      uploadCapture(file, { projectId, data }, (f) => (tracked.progress = f))
+      uploadCapture(file, { projectId, channelSetup, data }, (f) => (tracked.progress = f))
         .then((r) => {
           tracked.progress = 1;
           tracked.captureId = r.id;

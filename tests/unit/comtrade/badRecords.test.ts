@@ -68,7 +68,8 @@ describe('refused configurations', () => {
   });
 
   it('a line longer than the line bound', () => {
-    expect(refusal(EASTFIELD_CFG.replace('Bay 4 relay', 'x'.repeat(20_000)), bytes(EASTFIELD_DAT)).message).toMatch(/line 1: the line is longer than 16,384 characters/);
+    expect(refusal(EASTFIELD_CFG.replace('Bay 4 relay', 'x'.repeat(70_000)), bytes(EASTFIELD_DAT)).message).toMatch(/line 1: the line is longer than 65,536 characters/);
+    expect(refusal(EASTFIELD_CFG.replace('Bay 4 relay', 'x'.repeat(2_000)), bytes(EASTFIELD_DAT), { maxLineChars: 1000 }).message).toMatch(/line 1: the line is longer than 1,000 characters/);
   });
 
   it('a .dat given in place of the .cfg', () => {
