@@ -8,6 +8,7 @@
 import { openAsBlob } from 'node:fs';
 import path from 'node:path';
 import mysql from 'mysql2/promise';
+import { CLIENT_HEADER, CLIENT_HEADER_VALUE } from '../shared/clientHeader';
 
 const UPLOADS = 20;
 const READERS = 50;
@@ -52,7 +53,8 @@ export async function runLoad({ base, cookie, databaseUrl, work, ready, writeCsv
   async function timed(kind: Kind, url: string, init?: RequestInit): Promise<unknown> {
     const t = performance.now();
     try {
-      const res = await fetch(url, { ...init, headers: { cookie } });
+      // Uploads must show they come from Crestline's own client (the server's origin check).
+      const res = await fetch(url, { ...init, headers: { cookie, [CLIENT_HEADER]: CLIENT_HEADER_VALUE } });
       const body = (await res.json()) as unknown;
       (latencies.get(kind) as number[]).push(performance.now() - t);
       if (!res.ok) errors.push(`${kind} ${url}: ${res.status} ${JSON.stringify(body).slice(0, 200)}`);
