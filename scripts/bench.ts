@@ -1,7 +1,8 @@
 /**
  * Prints Crestline's speed and memory figures beside references, so a regression shows:
  *   engine time-domain figures vs a naive loop; harmonics vs a full Bluestein transform;
- *   CSV body parsing vs csv-parse; upload-to-ready vs a numpy script; peak memory of a 10 M-row
+ *   CSV body parsing vs csv-parse; COMTRADE binary reading vs a bare DataView loop; upload-to-ready
+ *   (CSV, and a binary COMTRADE record) vs numpy scripts; peak memory of a 10 M-row
  *   ingest; samples-endpoint latency on a 10 M-sample capture; 20 uploads at once under 50 readers.
  * Run through `npm run bench` (it starts the benchmark database). `--quick` skips the 10 M-row steps.
  */
@@ -11,7 +12,9 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { parse } from 'csv-parse/sync';
 import { analyzeChannel, dftPlan, harmonics, simulateMeter, timeDomainFigures } from '../shared/analysis';
+import { readComtrade } from '../shared/comtrade';
 import { readCaptureBytes } from '../shared/csv/readCaptureBytes';
+import { numpyComtradeScript, writeComtradeBinary } from './benchComtrade';
 import { runLoad } from './benchLoad';
 import { CLIENT_HEADER, CLIENT_HEADER_VALUE } from '../shared/clientHeader';
 import { SAMPLES_BINARY_TYPE } from '../shared/samples/samplesBinary';
@@ -117,6 +120,22 @@ const mbps = (ms: number) => (size1 / 1e6 / (ms / 1000)).toFixed(0);
 const loadtxt = spawnSync('python3', ['-c', 'import sys, time, numpy as np\nt = time.perf_counter(); np.loadtxt(sys.argv[1], delimiter=",", skiprows=1); print(time.perf_counter() - t)', csvFile]);
 const numpyRead = loadtxt.status === 0 ? `numpy loadtxt ${mbps(Number(loadtxt.stdout.toString()) * 1000)} MB/s; ` : 'numpy missing; ';
 line(`CSV reading, ${(size1 / 1e6).toFixed(0)} MB, 1 M rows`, `${mbps(parseMs)} MB/s`, `${numpyRead}csv-parse cast:true ${mbps(csvParseMs)} MB/s; bare indexOf+Number loop ${mbps(bareMs)} MB/s; target ≥ 200 MB/s`);
+
+// 2b. COMTRADE binary reading, against a DataView loop that only sums the values.
+const record = path.join(work, 'engine-record');
+const datBytes = await writeComtradeBinary(record, 1_000_000);
+const cfg = new Uint8Array(readFileSync(`${record}.cfg`));
+const dat = new Uint8Array(readFileSync(`${record}.dat`));
+const datChunks = Array.from({ length: Math.ceil(dat.length / (4 << 20)) }, (_, i) => dat.subarray(i * (4 << 20), (i + 1) * (4 << 20)));
+const comtradeMs = best(3, () => readComtrade(cfg, datChunks, dat.length, { configName: 'engine-record.cfg' }));
+const floorMs = best(3, () => {
+  const dv = new DataView(dat.buffer, dat.byteOffset, dat.byteLength);
+  let s = 0;
+  for (let p = 0; p < dat.length; p += 26) for (let c = 0; c < 8; c++) s += dv.getInt16(p + 8 + 2 * c, true);
+  return s;
+});
+const rate = (ms: number) => (datBytes / 1e6 / (ms / 1000)).toFixed(0);
+line(`COMTRADE reading, ${(datBytes / 1e6).toFixed(0)} MB BINARY, 1 M × 8 ch`, `${rate(comtradeMs)} MB/s`, `bare DataView loop ${rate(floorMs)} MB/s`);
 }
 if (part === 'engine') {
   rmSync(work, { recursive: true, force: true });
@@ -154,10 +173,11 @@ if (!login.ok) throw new Error(`bench sign-in refused: ${login.status} ${await l
 const cookie = (login.headers.get('set-cookie') ?? '').split(';')[0];
 const headers = { cookie, [CLIENT_HEADER]: CLIENT_HEADER_VALUE };
 
-async function uploadAndWait(file: string, name: string): Promise<{ ms: number; id: number }> {
+async function uploadAndWait(file: string, name: string, data?: string): Promise<{ ms: number; id: number }> {
   const t = performance.now();
   const form = new FormData();
   form.append('file', await openAsBlob(file), name);
+  if (data) form.append('data', await openAsBlob(data), path.basename(data));
   const res = await fetch(`${base}/api/captures`, { method: 'POST', headers, body: form });
   if (!res.ok) throw new Error(`bench upload refused: ${res.status} ${await res.text()}`);
   const { id } = (await res.json()) as { id: number };
@@ -189,9 +209,11 @@ for c in (1, 2):
 print(time.perf_counter() - t)
 `;
 const py = spawnSync('python3', ['-c', numpyScript, csv1]);
+let csvRatio: number | null = null;
 if (py.status === 0) {
   const numpyMs = Number(py.stdout.toString()) * 1000;
-  line(`upload → ready, ${(size1 / 1e6).toFixed(0)} MB, 1 M rows × 2 channels`, `${upload.ms.toFixed(0)} ms`, `numpy loadtxt+figures+FFT ${numpyMs.toFixed(0)} ms; ratio ${(upload.ms / numpyMs).toFixed(2)} (target ≤ 1.5)`);
+  csvRatio = upload.ms / numpyMs;
+  line(`upload → ready, ${(size1 / 1e6).toFixed(0)} MB, 1 M rows × 2 channels`, `${upload.ms.toFixed(0)} ms`, `numpy loadtxt+figures+FFT ${numpyMs.toFixed(0)} ms; ratio ${csvRatio.toFixed(2)} (target ≤ 1.5)`);
 } else {
   line(`upload → ready, ${(size1 / 1e6).toFixed(0)} MB, 1 M rows × 2 channels`, `${upload.ms.toFixed(0)} ms`, 'numpy reference skipped: python3 with numpy is missing');
 }
@@ -211,6 +233,20 @@ if (py.status === 0) {
     spanTimes.push(performance.now() - t);
   }
   line('span figures on the server, 1 M samples × 2 channels', `${Math.min(...spanTimes).toFixed(0)} ms`, `the same span as Float32 would be ${((8e6 / 1024 / 1024)).toFixed(1)} MiB to download first`);
+}
+
+// 3b. A binary COMTRADE record, 1 M samples × 8 channels, upload → ready against numpy.fromfile.
+const comtrade = path.join(work, 'bench-record');
+const datSize = await writeComtradeBinary(comtrade, 1_000_000);
+const record = await uploadAndWait(`${comtrade}.cfg`, 'bench-record.cfg', `${comtrade}.dat`);
+const pyComtrade = spawnSync('python3', ['-c', numpyComtradeScript, `${comtrade}.dat`]);
+const label = `COMTRADE upload → ready, ${(datSize / 1e6).toFixed(0)} MB BINARY, 1 M × 8 ch`;
+if (pyComtrade.status === 0) {
+  const numpyMs = Number(pyComtrade.stdout.toString()) * 1000;
+  const csvNote = csvRatio === null ? '' : ` (CSV: ${csvRatio.toFixed(2)})`;
+  line(label, `${record.ms.toFixed(0)} ms`, `numpy fromfile+figures+FFT ${numpyMs.toFixed(0)} ms; ratio ${(record.ms / numpyMs).toFixed(2)}${csvNote}`);
+} else {
+  line(label, `${record.ms.toFixed(0)} ms`, 'numpy reference skipped: python3 with numpy is missing');
 }
 
 // 4. 10 M rows: peak memory and zoom latency

@@ -53,6 +53,7 @@ export async function runLoad({ base, cookie, databaseUrl, work, ready, writeCsv
   async function timed(kind: Kind, url: string, init?: RequestInit): Promise<unknown> {
     const t = performance.now();
     try {
+      // Uploads must show they come from Crestline's own client (the server's origin check).
       const res = await fetch(url, { ...init, headers: { cookie, [CLIENT_HEADER]: CLIENT_HEADER_VALUE } });
       const body = (await res.json()) as unknown;
       (latencies.get(kind) as number[]).push(performance.now() - t);

@@ -86,7 +86,7 @@ export async function findCaptureSummary(db: Db, id: number): Promise<CaptureSum
 /** A capture with its channels: the capture row (with its summary) in one query, the channels in another. */
 export async function findCaptureDetail(db: Db, id: number): Promise<CaptureDetail | null> {
   const [row] = await db
-    .select({ ...summaryColumns, t0: captures.t0, sha256: captures.sha256, detected: captures.detected, metadata: captures.metadata, engineVersion: captures.engineVersion, readyAt: captures.readyAt, channelSetup: captures.channelSetup, systems: captures.systems, declaredVoltage: captures.declaredVoltage })
+    .select({ ...summaryColumns, t0: captures.t0, sha256: captures.sha256, detected: captures.detected, metadata: captures.metadata, engineVersion: captures.engineVersion, readyAt: captures.readyAt, channelSetup: captures.channelSetup, systems: captures.systems, declaredVoltage: captures.declaredVoltage, format: captures.format, dataName: captures.dataName, comtrade: captures.comtrade })
     .from(captures)
     .leftJoin(users, eq(users.id, captures.uploadedBy))
     .where(eq(captures.id, id));
@@ -107,6 +107,9 @@ export async function findCaptureDetail(db: Db, id: number): Promise<CaptureDeta
     systemsSpec: parse(row.systems) ?? null,
     declaredVoltage: row.declaredVoltage,
     reanalysing: Boolean(pending),
+    format: row.format,
+    dataName: row.dataName,
+    comtrade: parse(row.comtrade) ?? null,
   };
 }
 

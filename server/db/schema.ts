@@ -15,6 +15,7 @@ import {
   varchar,
 } from 'drizzle-orm/mysql-core';
 import type { ChannelSetup } from '../../shared/schemas/channelSetup';
+import type { ComtradeSummary } from '../../shared/schemas/comtrade';
 import type { PowerQuality } from '../../shared/schemas/powerQuality';
 import type { SystemSpec } from '../../shared/schemas/threePhase';
 import type { FrontEndProfile } from '../../shared/schemas/meterSimulation';
@@ -96,6 +97,15 @@ export const captures = mysqlTable(
     sizeBytes: bigint('size_bytes', { mode: 'number' }).notNull(),
     /** The original file, gzip-compressed, relative to DATA_DIR. */
     originalPath: varchar('original_path', { length: 255 }),
+    /** 'comtrade': a COMTRADE record, its .cfg (or .cff) at originalPath and its .dat at dataPath. */
+    format: mysqlEnum('format', ['csv', 'comtrade']).notNull().default('csv'),
+    /** The .dat kept beside a .cfg, relative to where originals are kept (gzip-compressed once ready), and its uploaded name. */
+    dataPath: varchar('data_path', { length: 255 }),
+    dataName: varchar('data_name', { length: 255 }),
+    /** COMTRADE values on the primary or secondary side of the instrument transformers, as asked at upload. */
+    comtradeValues: mysqlEnum('comtrade_values', ['primary', 'secondary']),
+    /** What a COMTRADE record's configuration says, with its digital channels' changes of state. */
+    comtrade: json('comtrade').$type<ComtradeSummary>(),
     /** Sample rate entered by the user for files that carry no time base. */
     sampleRateHint: double('sample_rate_hint'),
     sampleRate: double('sample_rate'),

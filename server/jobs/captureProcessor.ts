@@ -7,6 +7,7 @@ import { isDatabaseAway } from '../errors';
 import { captures, jobs } from '../db/schema';
 import { compressOriginal, readableOriginal } from '../services/originalFiles';
 import { IngestFailure, IngestWorkerClient } from '../workers/IngestWorkerClient';
+import type { IngestRequest } from '../workers/ingestTask';
 import { maxSamples, taskBudgetMs } from './ingestLimits';
 import { claimJob, enqueue, heartbeat, MAX_ATTEMPTS, ownedBy, releaseJob, type ClaimedJob } from './jobQueue';
 import { unexpectedFailure } from './processingFailure';
@@ -121,12 +122,13 @@ export class CaptureProcessor {
     // Four heartbeats per stale period, so a live worker is never taken for a dead one.
     const everyMs = Math.min(5000, (config.JOB_STALE_SECONDS * 1000) / 4);
     const beat = setInterval(() => void heartbeat(db, job.id, this.workerId).catch(() => undefined), everyMs);
-    let readable: { file: string; done(): Promise<void> } | null = null;
+    let readable: Awaited<ReturnType<typeof readableOriginal>> | null = null;
     try {
       const t0 = performance.now();
       readable = await readableOriginal(this.ctx, capture.id);
       const setup = await runSetupOf(this.ctx.db, capture);
-      const request = { file: readable.file, sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint, limits: { maxSamples: maxSamples(config) }, ...setup };
+      const request: IngestRequest = { file: readable.file, sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint, limits: { maxSamples: maxSamples(config) }, ...setup };
+      if (capture.format === 'comtrade') request.comtrade = { dataFile: readable.dataFile, configName: capture.originalName, dataName: capture.dataName, values: capture.comtradeValues ?? 'primary' };
       const result = await slot.ingest(request, taskBudgetMs(config, capture.sizeBytes));
       const t1 = performance.now();
       if (!this.running) return await this.giveBack(job);

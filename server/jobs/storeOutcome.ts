@@ -58,6 +58,13 @@ export function storeReady(db: Db, job: ClaimedJob, workerId: string, r: IngestR
           );
         }
       }
+      // Marks the file itself sets (a COMTRADE trigger) belong to no one channel. One already accepted
+      // or dismissed in an earlier run is left as the user made it, not suggested again.
+      const kept = r.marks?.length ? await tx.select({ label: annotations.label, startS: annotations.startS }).from(annotations).where(and(eq(annotations.captureId, job.captureId), eq(annotations.source, 'finder'))) : [];
+      const marks = (r.marks ?? []).filter((m) => !kept.some((k) => k.label === m.label && k.startS === m.startS));
+      if (marks.length) {
+        await tx.insert(annotations).values(marks.map((m) => ({ captureId: job.captureId, channelIdx: null, ...m, note: '', source: 'finder' as const, state: 'suggested' as const })));
+      }
       await tx
         .update(captures)
         .set({
@@ -70,6 +77,7 @@ export function storeReady(db: Db, job: ClaimedJob, workerId: string, r: IngestR
           t0: r.t0,
           detected: r.detected,
           metadata: r.metadata,
+          comtrade: r.comtrade ?? null,
           engineVersion: r.engineVersion,
           powerQuality: { systems: r.systems, voltageEvents: r.channels.flatMap((c, channel) => (c.voltageEvents ? [{ channel, ...c.voltageEvents }] : [])) },
           readyAt: sql`NOW()`,

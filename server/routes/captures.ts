@@ -4,14 +4,14 @@ import { mkdirSync } from 'node:fs';
 import { rm } from 'node:fs/promises';
 import path from 'node:path';
 import { pipeline } from 'node:stream/promises';
-import { CaptureListQuery, SampleRateRequest, SamplesQuery, UpdateCaptureRequest, UploadFields } from '../../shared/schemas/capture';
+import { CaptureListQuery, ComtradeValuesRequest, OriginalQuery, SampleRateRequest, SamplesQuery, UpdateCaptureRequest, UploadFields } from '../../shared/schemas/capture';
 import { IdParam } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
 import { findCaptureRow } from '../db/captureRepository';
 import { AppError, notFound } from '../errors';
 import { allow, currentUser } from '../middleware/auth';
-import { acceptUpload, captureAnalysis, captureDetail, captureList, deleteCapture, provideSampleRate, reanalyseOutdated, updateCapture } from '../services/captureService';
-import { originalStream } from '../services/originalFiles';
+import { acceptUpload, captureAnalysis, captureDetail, captureList, deleteCapture, provideSampleRate, reanalyseOutdated, setComtradeValues, updateCapture } from '../services/captureService';
+import { keptFile, originalStream } from '../services/originalFiles';
 import { sampleWindowData } from '../services/sampleWindowService';
 import { sendSamples } from './sendSamples';
 import { hashingDiskStorage } from '../services/hashingStorage';
@@ -35,8 +35,12 @@ const formatBytes = (n: number) => {
 export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
   const tmp = path.join(ctx.config.DATA_DIR, 'uploads');
   mkdirSync(tmp, { recursive: true });
-  // multer streams the file to disk; it is never held in memory whole.
-  const upload = multer({ storage: hashingDiskStorage(tmp), limits: { fileSize: ctx.config.UPLOAD_LIMIT_BYTES, files: 1, fields: 10 } }).single('file');
+  // multer streams the files to disk; none is ever held in memory whole. `data` carries a COMTRADE
+  // .dat beside its .cfg in `file`; the size limit applies to each file.
+  const upload = multer({ storage: hashingDiskStorage(tmp), limits: { fileSize: ctx.config.UPLOAD_LIMIT_BYTES, files: 2, fields: 10 } }).fields([
+    { name: 'file', maxCount: 1 },
+    { name: 'data', maxCount: 1 },
+  ]);
   const limit = formatBytes(ctx.config.UPLOAD_LIMIT_BYTES);
 
   return Router()
@@ -49,14 +53,16 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
         next(err);
       });
     }, async (req, res) => {
-      if (!req.file) throw new AppError(400, 'no_file', 'Attach the capture file as the form field "file"');
+      const files = (req.files ?? {}) as Record<string, Express.Multer.File[] | undefined>;
+      const [file, data] = [files.file?.[0], files.data?.[0] ?? null];
       try {
-        const result = await acceptUpload(ctx, currentUser(req), req.file, UploadFields.parse(req.body ?? {}));
+        if (!file) throw new AppError(400, 'no_file', 'Attach the capture file as the form field "file"');
+        const result = await acceptUpload(ctx, currentUser(req), file, UploadFields.parse(req.body ?? {}), data);
         if (!result.duplicate) onQueued();
         res.status(result.duplicate ? 200 : 202).json(result);
       } finally {
         // Kept files were moved away; whatever is left here (bad fields, a failure) is only temporary.
-        await rm(req.file.path, { force: true });
+        await Promise.all([file, data].map((f) => f && rm(f.path, { force: true })));
       }
     })
     .get('/captures', async (req, res) => {
@@ -77,6 +83,11 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
       onQueued();
       res.status(202).json(detail);
     })
+    .post('/captures/:id/comtrade-values', allow('admin', 'engineer'), async (req, res) => {
+      const detail = await setComtradeValues(ctx, currentUser(req), IdParam.parse(req.params).id, ComtradeValuesRequest.parse(req.body).values);
+      onQueued();
+      res.status(202).json(detail);
+    })
     .get('/captures/:id/analysis', async (req, res) => {
       res.json(await captureAnalysis(ctx, IdParam.parse(req.params).id));
     })
@@ -88,10 +99,11 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
     })
     .get('/captures/:id/original', async (req, res) => {
       const row = await findCaptureRow(ctx.db, IdParam.parse(req.params).id);
-      if (!row?.originalPath) throw notFound('Original file');
-      res.attachment(row.originalName);
-      res.type('text/csv');
-      await pipeline(originalStream(ctx, row.originalPath), res);
+      const kept = keptFile(row, OriginalQuery.parse(req.query).part);
+      if (!kept) throw notFound('Original file');
+      res.attachment(kept.name);
+      res.type(kept.type);
+      await pipeline(originalStream(ctx, kept.path), res);
     })
     .post('/admin/reanalyse', allow('admin'), async (_req, res) => {
       const queued = await reanalyseOutdated(ctx);

@@ -1,8 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { rm } from 'node:fs/promises';
 import { ENGINE_VERSION } from '../../shared/analysis';
-import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
-import type { ChannelSetup } from '../../shared/schemas/channelSetup';
+import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, UpdateCaptureRequest, UploadFields, UploadResponse } from '../../shared/schemas/capture';
 import type { User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
 import { channelAnalyses, powerQualityOf, findCaptureBySha, findCaptureDetail, findCaptureRow, listCaptures } from '../db/captureRepository';
@@ -12,6 +11,7 @@ import { AppError, forbidden, notFound } from '../errors';
 import { enqueue } from '../jobs/jobQueue';
 import { keepOriginal, removeCaptureFiles, sha256OfFile } from './originalFiles';
 import { defaultProjectId } from './projectService';
+import { uploadFormat } from './uploadFormat';
 import { requireRoleIn, visibleProject } from './visibility';
 
 export interface UploadedFile {
@@ -25,22 +25,20 @@ export interface UploadedFile {
 /**
  * Takes an uploaded file: files it under the named (or the uploader's default) project, recognises a
  * second upload of the same bytes to that project as the existing capture, keeps the original, and queues it for processing, all before
- * answering, so the upload returns at once whatever the file's size.
+ * answering, so the upload returns at once whatever the file's size. A COMTRADE .cfg comes with its
+ * .dat (`data`): both are kept, and their bytes one after the other make the SHA-256 (read again here:
+ * the hashes taken while each streamed in cannot be joined).
  */
-export async function acceptUpload(
-  ctx: AppContext,
-  user: User,
-  file: UploadedFile,
-  fields: { name?: string; projectId?: number; sampleRate?: number; channelSetup?: ChannelSetup[] },
-): Promise<UploadResponse> {
+export async function acceptUpload(ctx: AppContext, user: User, file: UploadedFile, fields: UploadFields, data: UploadedFile | null = null): Promise<UploadResponse> {
   try {
+    const kind = uploadFormat(file.originalname, data?.originalname ?? null);
     const projectId = fields.projectId ?? (await defaultProjectId(ctx, user.id, user.name));
     // The project is named in the form, not the path, so projectScopes has not seen it.
     requireRoleIn(await visibleProject(ctx, user, projectId), 'admin', 'engineer');
     const project = await findProject(ctx.db, projectId);
     if (!project) throw notFound('Project');
     if (project.archived) throw new AppError(409, 'project_archived', 'That project is archived; restore it before adding captures');
-    const sha256 = file.sha256 ?? (await sha256OfFile(file.path));
+    const sha256 = data ? await sha256OfFile(file.path, data.path) : (file.sha256 ?? (await sha256OfFile(file.path)));
     const existing = await findCaptureBySha(ctx.db, projectId, sha256);
     if (existing) return { id: existing.id, status: existing.status, duplicate: true };
     const name = fields.name || file.originalname.replace(/\.[^.]+$/, '') || 'Capture';
@@ -49,11 +47,24 @@ export async function acceptUpload(
       const id = await ctx.db.transaction(async (tx) => {
         const [{ id }] = await tx
           .insert(captures)
-          .values({ projectId, name: name.slice(0, 200), uploadedBy: user.id, originalName: file.originalname.slice(0, 255), sha256, sizeBytes: file.size, sampleRateHint: fields.sampleRate ?? null, channelSetup: fields.channelSetup ?? [] })
+          .values({
+            projectId,
+            name: name.slice(0, 200),
+            uploadedBy: user.id,
+            originalName: file.originalname.slice(0, 255),
+            sha256,
+            sizeBytes: file.size + (data?.size ?? 0),
+            sampleRateHint: fields.sampleRate ?? null,
+            channelSetup: fields.channelSetup ?? [],
+            format: kind.format,
+            dataName: data?.originalname.slice(0, 255) ?? null,
+            comtradeValues: kind.format === 'comtrade' ? (fields.comtradeValues ?? 'primary') : null,
+          })
           .$returningId();
-        const relative = await keepOriginal(ctx, file.path, id);
         keptAs = id;
-        await tx.update(captures).set({ originalPath: relative }).where(eq(captures.id, id));
+        const relative = await keepOriginal(ctx, file.path, id, kind.extension);
+        const dataPath = data ? await keepOriginal(ctx, data.path, id, 'dat') : null;
+        await tx.update(captures).set({ originalPath: relative, dataPath }).where(eq(captures.id, id));
         await enqueue(tx, id, 'ingest');
         return id;
       });
@@ -64,7 +75,7 @@ export async function acceptUpload(
       throw err;
     }
   } finally {
-    await rm(file.path, { force: true });
+    await Promise.all([rm(file.path, { force: true }), data && rm(data.path, { force: true })]);
   }
 }
 
@@ -117,6 +128,21 @@ export async function provideSampleRate(ctx: AppContext, user: User, id: number,
   await ctx.db.transaction(async (tx) => {
     await tx.update(captures).set({ sampleRateHint: sampleRate, status: 'queued', errorCode: null, errorMessage: null, errorLine: null }).where(eq(captures.id, id));
     await enqueue(tx, id, 'ingest');
+  });
+  return captureDetail(ctx, id);
+}
+
+/**
+ * Switches a COMTRADE capture between primary and secondary values: the record is read again, as a
+ * re-analysis of a ready capture (which stays readable meanwhile) or a new ingest of a failed one.
+ */
+export async function setComtradeValues(ctx: AppContext, user: User, id: number, values: 'primary' | 'secondary'): Promise<CaptureDetail> {
+  const row = await ownedCapture(ctx, user, id);
+  if (row.format !== 'comtrade') throw new AppError(409, 'not_comtrade', 'Only a COMTRADE record has primary and secondary values');
+  if (row.status === 'queued' || row.status === 'processing') throw new AppError(409, 'not_ready', 'The record is still being read; switch once it is ready');
+  await ctx.db.transaction(async (tx) => {
+    await tx.update(captures).set({ comtradeValues: values, ...(row.status === 'failed' ? { status: 'queued' as const, errorCode: null, errorMessage: null, errorLine: null } : {}) }).where(eq(captures.id, id));
+    await enqueue(tx, id, row.status === 'failed' ? 'ingest' : 'reanalyse');
   });
   return captureDetail(ctx, id);
 }

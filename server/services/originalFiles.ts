@@ -10,9 +10,10 @@ import { captures } from '../db/schema';
 
 export const ORIGINALS_DIR = 'originals';
 
-export async function sha256OfFile(file: string): Promise<string> {
+/** SHA-256 of the files' bytes one after the other (a COMTRADE pair: the .cfg, then the .dat). */
+export async function sha256OfFile(...files: string[]): Promise<string> {
   const hash = createHash('sha256');
-  await pipeline(createReadStream(file), hash);
+  for (const file of files) for await (const chunk of createReadStream(file)) hash.update(chunk as Buffer);
   return hash.digest('hex');
 }
 
@@ -30,9 +31,9 @@ async function moveFile(from: string, to: string): Promise<void> {
   }
 }
 
-/** Moves an upload into the originals folder; returns its path relative to filesRoot. */
-export async function keepOriginal(ctx: AppContext, tempFile: string, captureId: number): Promise<string> {
-  const relative = path.join(ORIGINALS_DIR, `${captureId}.csv`);
+/** Moves an upload into the originals folder as `<id>.<extension>`; returns its path relative to filesRoot. */
+export async function keepOriginal(ctx: AppContext, tempFile: string, captureId: number, extension = 'csv'): Promise<string> {
+  const relative = path.join(ORIGINALS_DIR, `${captureId}.${extension}`);
   await mkdir(path.join(filesRoot(ctx), ORIGINALS_DIR), { recursive: true });
   await moveFile(tempFile, path.join(filesRoot(ctx), relative));
   return relative;
@@ -48,9 +49,18 @@ export async function keepOriginal(ctx: AppContext, tempFile: string, captureId:
  * the new file is removed, so nothing is left behind.
  */
 export async function compressOriginal(ctx: AppContext, captureId: number): Promise<void> {
-  const [row] = await ctx.db.select({ originalPath: captures.originalPath }).from(captures).where(eq(captures.id, captureId));
-  if (!row?.originalPath || row.originalPath.endsWith('.gz')) return;
-  const plain = row.originalPath;
+  // A COMTRADE record keeps its .dat beside the .cfg: both are compressed the same way.
+  for (const column of KEPT_FILES) await compressKept(ctx, captureId, column);
+}
+
+/** The columns that name a capture's kept files. */
+const KEPT_FILES = ['originalPath', 'dataPath'] as const;
+type KeptFile = (typeof KEPT_FILES)[number];
+
+async function compressKept(ctx: AppContext, captureId: number, column: KeptFile): Promise<void> {
+  const [row] = await ctx.db.select({ kept: captures[column] }).from(captures).where(eq(captures.id, captureId));
+  if (!row?.kept || row.kept.endsWith('.gz')) return;
+  const plain = row.kept;
   const source = path.join(filesRoot(ctx), plain);
   const target = `${plain}.gz`;
   const partial = path.join(filesRoot(ctx), `${target}.${randomBytes(4).toString('hex')}.part`);
@@ -65,23 +75,23 @@ export async function compressOriginal(ctx: AppContext, captureId: number): Prom
   }
   const [moved] = await ctx.db
     .update(captures)
-    .set({ originalPath: target })
-    .where(and(eq(captures.id, captureId), eq(captures.originalPath, plain)));
+    .set({ [column]: target })
+    .where(and(eq(captures.id, captureId), eq(captures[column], plain)));
   if (moved.affectedRows === 1) {
     await rm(source, { force: true });
     return;
   }
   // Deleted meanwhile: its files go with it. Compressed by another run: that run's file is the same.
-  const [still] = await ctx.db.select({ originalPath: captures.originalPath }).from(captures).where(eq(captures.id, captureId));
+  const [still] = await ctx.db.select({ id: captures.id }).from(captures).where(eq(captures.id, captureId));
   if (!still) await removeCaptureFiles(ctx, captureId);
 }
 
-/** Removes every file kept for a capture (plain or compressed original); call after the delete committed. */
+/** Removes every file kept for a capture (`<id>.csv`, `.cfg`, `.dat`, `.cff`, plain or compressed); call after the delete committed. */
 export async function removeCaptureFiles(ctx: AppContext, captureId: number): Promise<void> {
   const dir = path.join(filesRoot(ctx), ORIGINALS_DIR);
-  const prefix = `${captureId}.csv`;
+  const prefix = `${captureId}.`;
   const names = await readdir(dir).catch(() => [] as string[]);
-  await Promise.all(names.filter((n) => n === prefix || n.startsWith(`${prefix}.`)).map((n) => rm(path.join(dir, n), { force: true })));
+  await Promise.all(names.filter((n) => n.startsWith(prefix)).map((n) => rm(path.join(dir, n), { force: true })));
 }
 
 /**
@@ -90,18 +100,31 @@ export async function removeCaptureFiles(ctx: AppContext, captureId: number): Pr
  * copy. If the file moved between reading its name and opening it, the name is read again once.
  * `done()` removes the copy; the temporary folder is also swept at start.
  */
-export async function readableOriginal(ctx: AppContext, captureId: number): Promise<{ file: string; done(): Promise<void> }> {
+export async function readableOriginal(ctx: AppContext, captureId: number): Promise<{ file: string; dataFile: string | null; done(): Promise<void> }> {
+  const file = await readableCopy(ctx, captureId, 'originalPath');
+  if (!file) throw new Error(`capture ${captureId} has no original file`);
+  try {
+    const dataFile = await readableCopy(ctx, captureId, 'dataPath');
+    return { file, dataFile, done: () => Promise.all([rm(file, { force: true }), dataFile && rm(dataFile, { force: true })]).then(() => undefined) };
+  } catch (err) {
+    await rm(file, { force: true });
+    throw err;
+  }
+}
+
+/** A readable copy of one kept file (see readableOriginal), or null when the capture names none. */
+async function readableCopy(ctx: AppContext, captureId: number, column: KeptFile): Promise<string | null> {
   const tmpDir = path.join(ctx.config.DATA_DIR, 'tmp');
   await mkdir(tmpDir, { recursive: true, mode: 0o700 });
   for (let attempt = 1; ; attempt++) {
-    const [row] = await ctx.db.select({ originalPath: captures.originalPath }).from(captures).where(eq(captures.id, captureId));
-    if (!row?.originalPath) throw new Error(`capture ${captureId} has no original file`);
-    const source = path.join(filesRoot(ctx), row.originalPath);
-    const tmp = path.join(tmpDir, `${captureId}-${randomBytes(6).toString('hex')}.csv`);
+    const [row] = await ctx.db.select({ kept: captures[column] }).from(captures).where(eq(captures.id, captureId));
+    if (!row?.kept) return null;
+    const source = path.join(filesRoot(ctx), row.kept);
+    const tmp = path.join(tmpDir, `${captureId}-${randomBytes(6).toString('hex')}.tmp`);
     try {
-      if (row.originalPath.endsWith('.gz')) await pipeline(createReadStream(source), createGunzip(), createWriteStream(tmp, { mode: 0o600 }));
+      if (row.kept.endsWith('.gz')) await pipeline(createReadStream(source), createGunzip(), createWriteStream(tmp, { mode: 0o600 }));
       else await link(source, tmp).catch((err: NodeJS.ErrnoException) => (err.code === 'EXDEV' ? copyFile(source, tmp) : Promise.reject(err)));
-      return { file: tmp, done: () => rm(tmp, { force: true }) };
+      return tmp;
     } catch (err) {
       await rm(tmp, { force: true });
       if ((err as NodeJS.ErrnoException).code !== 'ENOENT' || attempt >= 2) throw err;
@@ -113,4 +136,13 @@ export async function readableOriginal(ctx: AppContext, captureId: number): Prom
 export function originalStream(ctx: AppContext, relative: string): NodeJS.ReadableStream {
   const raw = createReadStream(path.join(filesRoot(ctx), relative));
   return relative.endsWith('.gz') ? raw.pipe(createGunzip()) : raw;
+}
+
+/** The kept file a download asks for, with its uploaded name and type; null when the capture has none. */
+export function keptFile(row: { format: string; originalPath: string | null; originalName: string; dataPath: string | null; dataName: string | null } | null, part: 'file' | 'data') {
+  if (!row) return null;
+  if (part === 'data') return row.dataPath ? { path: row.dataPath, name: row.dataName ?? 'data.dat', type: 'application/octet-stream' } : null;
+  if (!row.originalPath) return null;
+  const type = row.format === 'csv' ? 'text/csv' : row.dataPath ? 'text/plain' : 'application/octet-stream';
+  return { path: row.originalPath, name: row.originalName, type };
 }

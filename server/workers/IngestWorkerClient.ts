@@ -117,8 +117,8 @@ export class IngestWorkerClient {
         return this.run<IngestedChannel>({ kind: 'analyse', request: analyse }, budgetMs, [channel.samples.buffer as ArrayBuffer]);
       }),
     );
-    const { sampleRate, sampleCount, t0, detected, metadata, systems } = parsed;
-    return { sampleRate, sampleCount, t0, detected, metadata, engineVersion: ENGINE_VERSION, channels, systems };
+    const { sampleRate, sampleCount, t0, detected, metadata, systems, comtrade, marks } = parsed;
+    return { sampleRate, sampleCount, t0, detected, metadata, engineVersion: ENGINE_VERSION, channels, systems, comtrade, marks };
   }
 
   /** The engine's figures over spans of stored samples, off the event loop, within `budgetMs`. */

@@ -10,6 +10,8 @@ import type { SystemSpec, ThreePhaseSystem } from '../../shared/schemas/threePha
 import { float32Chunks, overviewPyramid } from '../services/samplePacking';
 import { inEngineeringUnits } from './engineeringUnits';
 
+import { parseComtrade, type ComtradeFiles, type FileExtras } from './parseComtrade';
+
 /** The declared supply voltage in V, and whether the capture or its project set it. */
 export type Declared = { value: number; from: 'capture' | 'project' } | null;
 
@@ -24,6 +26,8 @@ export interface IngestRequest {
   /** Three-phase sets a user stated; null or absent: found automatically. */
   systems?: SystemSpec[] | null;
   declared?: Declared;
+  /** Set for a COMTRADE record: `file` is its .cfg (with `dataFile`) or its .cff (without). */
+  comtrade?: ComtradeFiles;
 }
 
 export interface IngestedChannel {
@@ -38,7 +42,7 @@ export interface IngestedChannel {
   overviews: { bucketSize: number; data: Buffer }[];
 }
 
-export interface IngestResult {
+export interface IngestResult extends FileExtras {
   sampleRate: number;
   sampleCount: number;
   t0: number;
@@ -73,7 +77,7 @@ export interface ParsedChannel {
   samples: Float64Array;
 }
 
-export interface ParsedFile {
+export interface ParsedFile extends FileExtras {
   sampleRate: number;
   sampleCount: number;
   t0: number;
@@ -88,6 +92,11 @@ export interface ParsedFile {
  * systems (they need several channels at once). CPU-bound: runs in a worker thread.
  */
 export function parseFile(req: IngestRequest): ParsedFile {
+  if (req.comtrade) {
+    const record = parseComtrade(req, req.comtrade, fileChunks);
+    const channels = inEngineeringUnits(record.channels, req.channelSetup);
+    return { ...record, channels, systems: threePhaseSystems(channels, record.sampleRate, record.t0, req.systems ?? null) };
+  }
   const t0 = performance.now();
   const data = readCaptureBytes(fileChunks(req.file), { sampleRateHint: req.sampleRateHint, totalBytes: req.sizeBytes, limits: req.limits });
   if (process.env.CRESTLINE_TRACE) console.log(`  reading ${(performance.now() - t0).toFixed(0)} ms`);

@@ -1,4 +1,5 @@
 import { parentPort } from 'node:worker_threads';
+import { ComtradeError } from '../../shared/comtrade';
 import { CsvError } from '../../shared/csv';
 import { analyseChannel, parseFile, spanFigures, type AnalyseRequest, type IngestRequest, type SpanFiguresRequest } from './ingestTask';
 
@@ -26,7 +27,7 @@ parentPort!.on('message', ({ id, task }: { id: number; task: IngestTask }) => {
     parentPort!.postMessage({ id, ok: true, result } satisfies IngestReply, [...new Set(transfer)] as ArrayBuffer[]);
   } catch (e) {
     const error =
-      e instanceof CsvError
+      e instanceof CsvError || e instanceof ComtradeError
         ? { code: e.code, message: e.message, ...(e.line !== undefined ? { line: e.line } : {}) }
         : { code: 'internal', message: e instanceof Error ? e.message : String(e) };
     parentPort!.postMessage({ id, ok: false, error } satisfies IngestReply);

@@ -3,6 +3,7 @@ import { ChannelAnalysis } from './analysis';
 import { ChannelSetup, UploadChannelSetupField } from './channelSetup';
 import { ChannelVoltageEvents } from './powerQuality';
 import { SystemSpec, ThreePhaseSystem } from './threePhase';
+import { ComtradeSummary } from './comtrade';
 
 export const CaptureStatus = z.enum(['queued', 'processing', 'ready', 'failed']);
 export type CaptureStatus = z.infer<typeof CaptureStatus>;
@@ -72,6 +73,10 @@ export const CaptureDetail = CaptureSummary.extend({
   declaredVoltage: z.number().nullable(),
   /** A re-analysis is queued or running; the figures shown are the last good ones until it is done. */
   reanalysing: z.boolean(),
+  /** 'comtrade': originalName is the .cfg (or .cff), dataName the .dat beside it. */
+  format: z.enum(['csv', 'comtrade']),
+  dataName: z.string().nullable(),
+  comtrade: ComtradeSummary.nullable(),
 });
 export type CaptureDetail = z.infer<typeof CaptureDetail>;
 
@@ -97,7 +102,13 @@ export const UploadFields = z.object({
   sampleRate: z.coerce.number().positive().optional(),
   /** JSON: channel setups to apply from the first analysis on (UploadChannelSetup). */
   channelSetup: UploadChannelSetupField.optional(),
+  /** For a COMTRADE record: values on the primary (default) or secondary side of the instrument transformers. */
+  comtradeValues: z.enum(['primary', 'secondary']).optional(),
 });
+export type UploadFields = z.infer<typeof UploadFields>;
+
+/** Which kept file GET /captures/:id/original serves: the uploaded file (a CSV, .cfg or .cff), or the .dat beside a .cfg. */
+export const OriginalQuery = z.object({ part: z.enum(['file', 'data']).default('file') });
 
 export const UploadResponse = z.object({ id: z.number().int(), status: CaptureStatus, duplicate: z.boolean() });
 export type UploadResponse = z.infer<typeof UploadResponse>;
@@ -106,6 +117,10 @@ export const UpdateCaptureRequest = z
   .object({ name: z.string().trim().min(1).max(200).optional(), tags: z.array(z.string().trim().min(1).max(40)).max(20).optional() })
   .refine((v) => Object.keys(v).length > 0, 'Nothing to change');
 export type UpdateCaptureRequest = z.infer<typeof UpdateCaptureRequest>;
+
+/** Shows a COMTRADE capture's values on the other side of its instrument transformers (read again). */
+export const ComtradeValuesRequest = z.object({ values: z.enum(['primary', 'secondary']) });
+export type ComtradeValuesRequest = z.infer<typeof ComtradeValuesRequest>;
 
 export const SampleRateRequest = z.object({ sampleRate: z.number().positive().max(1e12) });
 

@@ -12,13 +12,14 @@ export const getCapture = (id: number) => api<CaptureDetail>('GET', `/captures/$
 export const getAnalysis = (id: number) => api<AnalysisResponse>('GET', `/captures/${id}/analysis`);
 export const deleteCapture = (id: number) => api<void>('DELETE', `/captures/${id}`);
 export const updateCapture = (id: number, req: UpdateCaptureRequest) => api<CaptureDetail>('PATCH', `/captures/${id}`, req);
+export const setComtradeValues = (id: number, values: 'primary' | 'secondary') => api<CaptureDetail>('POST', `/captures/${id}/comtrade-values`, { values });
 export const giveSampleRate = (id: number, sampleRate: number) => api<CaptureDetail>('POST', `/captures/${id}/sample-rate`, { sampleRate });
 export const getSamples = (id: number, q: { channel: number; fromS?: number; toS?: number; points: number }) =>
   api<SamplesResponse>('GET', `/captures/${id}/samples?${query(q)}`);
 export const originalUrl = (id: number) => `/api/captures/${id}/original`;
 
-/** Uploads one file with progress (fetch cannot report upload progress, XMLHttpRequest can). */
-export function uploadCapture(file: File, fields: { projectId?: number; name?: string; channelSetup?: string }, onProgress: (fraction: number) => void): Promise<UploadResponse> {
+/** Uploads one file (or a COMTRADE .cfg with its .dat in `data`) with progress (fetch cannot report upload progress, XMLHttpRequest can). */
+export function uploadCapture(file: File, fields: { projectId?: number; name?: string; channelSetup?: string; data?: File }, onProgress: (fraction: number) => void): Promise<UploadResponse> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', '/api/captures');
@@ -35,6 +36,7 @@ export function uploadCapture(file: File, fields: { projectId?: number; name?: s
     if (fields.name) form.append('name', fields.name);
     if (fields.channelSetup) form.append('channelSetup', fields.channelSetup);
     form.append('file', file);
+    if (fields.data) form.append('data', fields.data);
     xhr.send(form);
   });
 }

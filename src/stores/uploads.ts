@@ -3,6 +3,7 @@ import { ref } from 'vue';
 import type { CaptureStatus } from '../../shared/schemas/capture';
 import { getCapture, uploadCapture } from '../api/captures';
 import { isApiError } from '../api/http';
+import { uploadGroups } from './uploadGroups';
 
 export interface UploadItem {
   key: number;
@@ -35,7 +36,8 @@ export const useUploadsStore = defineStore('uploads', () => {
       try {
         const c = await getCapture(item.captureId);
         item.status = c.status;
-        item.message = c.error ? `${c.error.message}${c.error.line ? ` (line ${c.error.line})` : ''}` : '';
+        // A COMTRADE message names its file and line itself.
+        item.message = c.error ? `${c.error.message}${c.error.line && !c.error.message.includes(`line ${c.error.line}`) ? ` (line ${c.error.line})` : ''}` : item.message;
       } catch (e) {
         item.status = 'failed';
         item.message = isApiError(e) ? e.message : String(e);
@@ -46,11 +48,13 @@ export const useUploadsStore = defineStore('uploads', () => {
 
   /** `channelSetup`: JSON of setups applied from the first analysis on (a probe preset chosen at upload). */
   async function add(files: File[], projectId: number, channelSetup?: string) {
-    for (const file of files) {
-      const item = ref<UploadItem>({ key: nextKey++, fileName: file.name, projectId, progress: 0, captureId: null, status: 'uploading', duplicate: false, message: '' }).value;
+    for (const { file, data, refused, note } of uploadGroups(files)) {
+      const fileName = data ? `${file.name} + ${data.name}` : file.name;
+      const item = ref<UploadItem>({ key: nextKey++, fileName, projectId, progress: 0, captureId: null, status: refused ? 'failed' : 'uploading', duplicate: false, message: refused ?? note ?? '' }).value;
       items.value.unshift(item);
+      if (refused) continue;
       const tracked = items.value[0];
-      uploadCapture(file, { projectId, channelSetup }, (f) => (tracked.progress = f))
+      uploadCapture(file, { projectId, channelSetup, data }, (f) => (tracked.progress = f))
         .then((r) => {
           tracked.progress = 1;
           tracked.captureId = r.id;

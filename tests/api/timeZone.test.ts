@@ -15,9 +15,9 @@ import { ADMIN, AS_CLIENT, resetDatabase, signedIn, startTestServer } from '../h
  * Here the test database server runs in another zone (set as root, restored afterwards), once ahead
  * of UTC (links would die early) and once behind (they would live on).
  */
-const rootOptions = '.data/test/my.cnf';
-const asRoot = (statement: string) =>
-  execFileSync('mariadb', [`--defaults-file=${rootOptions}`, '--user=root', '--batch', '--skip-column-names', '-e', statement]).toString().trim();
+// MariaDB's root signs in with the password scripts/db.sh generated, through the option file it writes.
+const rootOptions = '.data/test/root.cnf';
+const asRoot = (statement: string) => execFileSync('mariadb', [`--defaults-file=${rootOptions}`, '--batch', '--skip-column-names', '-e', statement]).toString().trim();
 
 let original = 'SYSTEM';
 beforeAll(() => {

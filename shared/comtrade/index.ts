@@ -1,0 +1,10 @@
+export type { ChannelScaling, ValuesSide } from './channelScaling';
+export type { AnalogChannelConfig, ComtradeConfig, DataFileType, DigitalChannelConfig } from './ComtradeConfig';
+export { ComtradeError, shortName } from './ComtradeError';
+export type { ComtradeRecord } from './ComtradeRecord';
+export { comtradeSummary } from './comtradeSummary';
+export { DEFAULT_COMTRADE_LIMITS, type ComtradeLimits } from './comtradeLimits';
+export { describeRecord, type MetadataEntry } from './describeRecord';
+export { parseConfig } from './parseConfig';
+export { readCff } from './readCff';
+export { readComtrade, type ComtradeReadOptions } from './readComtrade';
