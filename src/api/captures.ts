@@ -1,11 +1,6 @@
-import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, SamplesResponse, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
+import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, SamplesQuery, SamplesResponse, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
 import { api, ApiError, toError } from './http';
-
-const query = (q: Record<string, string | number | undefined>) =>
-  Object.entries(q)
-    .filter(([, v]) => v !== undefined && v !== '')
-    .map(([k, v]) => `${encodeURIComponent(k)}=${encodeURIComponent(String(v))}`)
-    .join('&');
+import { queryString as query } from './queryString';
 
 export const listCaptures = (q: Partial<CaptureListQuery>) => api<CaptureList>('GET', `/captures?${query(q)}`);
 export const getCapture = (id: number) => api<CaptureDetail>('GET', `/captures/${id}`);
@@ -13,8 +8,7 @@ export const getAnalysis = (id: number) => api<AnalysisResponse>('GET', `/captur
 export const deleteCapture = (id: number) => api<void>('DELETE', `/captures/${id}`);
 export const updateCapture = (id: number, req: UpdateCaptureRequest) => api<CaptureDetail>('PATCH', `/captures/${id}`, req);
 export const giveSampleRate = (id: number, sampleRate: number) => api<CaptureDetail>('POST', `/captures/${id}/sample-rate`, { sampleRate });
-export const getSamples = (id: number, q: { channel: number; fromS?: number; toS?: number; points: number }) =>
-  api<SamplesResponse>('GET', `/captures/${id}/samples?${query(q)}`);
+export const getSamples = (id: number, q: SamplesQuery) => api<SamplesResponse>('GET', `/captures/${id}/samples?${query(q)}`);
 export const originalUrl = (id: number) => `/api/captures/${id}/original`;
 
 /** Uploads one file with progress (fetch cannot report upload progress, XMLHttpRequest can). */
