@@ -51,6 +51,16 @@ export const CrestlinePreset = definePreset(Aura, {
         dark: { root: { color: '{surface.300}' }, icon: { color: '{surface.300}' } },
       },
     },
+    // Text and outlined buttons in Aura's 500 shades fall short of 4.5:1 on white; 700 passes.
+    button: {
+      colorScheme: {
+        light: {
+          text: { secondary: { color: '{surface.600}' }, danger: { color: '{red.700}' }, success: { color: '{green.700}' }, warn: { color: '{orange.700}' }, info: { color: '{sky.700}' } },
+          outlined: { secondary: { color: '{surface.600}' }, danger: { color: '{red.700}' }, success: { color: '{green.700}' }, warn: { color: '{orange.700}' }, info: { color: '{sky.700}' } },
+        },
+        dark: { text: { secondary: { color: '{surface.300}' } }, outlined: { secondary: { color: '{surface.300}' } } },
+      },
+    },
     // Aura's message text (600 on 50) falls short of 4.5:1 for warnings and successes; a step darker passes.
     message: {
       colorScheme: {
