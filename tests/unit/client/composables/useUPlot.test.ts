@@ -42,7 +42,7 @@ class FakePlot {
   /** What uPlot does when the cursor moves: its hooks run. */
   moveTo(idx: number) {
     this.cursor.idx = idx;
-    this.opts.hooks?.setCursor?.forEach((h) => h(this as unknown as uPlot));
+    this.opts.hooks?.setCursor?.forEach((h) => h?.(this as unknown as uPlot));
   }
 }
 
