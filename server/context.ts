@@ -1,6 +1,7 @@
 import type { Config } from './config';
 import type { Db } from './db/client';
 import type { Mailer } from './mail/mailer';
+import type { IngestWorkerClient } from './workers/IngestWorkerClient';
 
 /** What routes and services need from the running server. */
 export interface AppContext {
@@ -13,4 +14,6 @@ export interface AppContext {
   publicUrl: string;
   /** Answers whether the database is reachable, for /api/health. */
   pingDatabase(): Promise<boolean>;
+  /** A worker thread for figures computed on request (span figures), so requests never block the event loop. */
+  spanWorkers: IngestWorkerClient;
 }

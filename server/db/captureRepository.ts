@@ -1,7 +1,10 @@
 import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
 import type { CaptureChannel, CaptureDetail, CaptureListQuery, CaptureSummary } from '../../shared/schemas/capture';
+import type { PowerQuality } from '../../shared/schemas/powerQuality';
+import type { User } from '../../shared/schemas/user';
 import type { Db } from './client';
-import { captures, channels, users } from './schema';
+import { captures, channels, jobs, users } from './schema';
+import { projectVisibleTo } from './visibilityRepository';
 
 const summaryColumns = {
   id: captures.id,
@@ -53,8 +56,11 @@ function toSummary(r: SummaryRow): CaptureSummary {
   };
 }
 
-export async function listCaptures(db: Db, q: CaptureListQuery): Promise<{ items: CaptureSummary[]; total: number }> {
+/** A page of the captures `seenBy` may see: those in projects hidden from them are left out, total included. */
+export async function listCaptures(db: Db, q: CaptureListQuery, seenBy: User): Promise<{ items: CaptureSummary[]; total: number }> {
   const where: SQL[] = [];
+  const visible = projectVisibleTo(seenBy, captures.projectId);
+  if (visible) where.push(visible);
   if (q.projectId) where.push(eq(captures.projectId, q.projectId));
   if (q.status) where.push(eq(captures.status, q.status));
   if (q.q) where.push(or(like(captures.name, `%${q.q}%`), like(captures.originalName, `%${q.q}%`)) as SQL);
@@ -77,14 +83,19 @@ export async function findCaptureSummary(db: Db, id: number): Promise<CaptureSum
   return row ? toSummary(row) : null;
 }
 
+/** A capture with its channels: the capture row (with its summary) in one query, the channels in another. */
 export async function findCaptureDetail(db: Db, id: number): Promise<CaptureDetail | null> {
-  const summary = await findCaptureSummary(db, id);
-  if (!summary) return null;
-  const [row] = await db.select().from(captures).where(eq(captures.id, id));
+  const [row] = await db
+    .select({ ...summaryColumns, t0: captures.t0, sha256: captures.sha256, detected: captures.detected, metadata: captures.metadata, engineVersion: captures.engineVersion, readyAt: captures.readyAt, channelSetup: captures.channelSetup, systems: captures.systems, declaredVoltage: captures.declaredVoltage })
+    .from(captures)
+    .leftJoin(users, eq(users.id, captures.uploadedBy))
+    .where(eq(captures.id, id));
+  if (!row) return null;
   const chans = await db.select().from(channels).where(eq(channels.captureId, id)).orderBy(asc(channels.idx));
   const parse = <T>(v: unknown): T => (typeof v === 'string' ? JSON.parse(v) : v) as T;
+  const [pending] = await db.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.captureId, id), eq(jobs.kind, 'reanalyse'), sql`${jobs.status} IN ('queued', 'running')`)).limit(1);
   return {
-    ...summary,
+    ...toSummary(row),
     t0: row.t0,
     sha256: row.sha256,
     channels: chans.map((c): CaptureChannel => ({ index: c.idx, name: c.name, unit: c.unit, invalidCount: c.invalidCount })),
@@ -92,6 +103,10 @@ export async function findCaptureDetail(db: Db, id: number): Promise<CaptureDeta
     metadata: parse(row.metadata) ?? [],
     engineVersion: row.engineVersion,
     readyAt: row.readyAt ? row.readyAt.toISOString() : null,
+    channelSetup: parse(row.channelSetup) ?? [],
+    systemsSpec: parse(row.systems) ?? null,
+    declaredVoltage: row.declaredVoltage,
+    reanalysing: Boolean(pending),
   };
 }
 
@@ -109,7 +124,35 @@ export async function findCaptureBySha(db: Db, projectId: number, sha256: string
   return row ?? null;
 }
 
+/** Three-phase systems and voltage events stored with the capture's last analysis. */
+export async function powerQualityOf(db: Db, id: number): Promise<PowerQuality> {
+  const [row] = await db.select({ pq: captures.powerQuality }).from(captures).where(eq(captures.id, id));
+  const pq = typeof row?.pq === 'string' ? (JSON.parse(row.pq) as PowerQuality) : row?.pq;
+  return pq ?? { systems: [], voltageEvents: [] };
+}
+
 export async function channelAnalyses(db: Db, id: number): Promise<unknown[]> {
   const rows = await db.select({ analysis: channels.analysis }).from(channels).where(eq(channels.captureId, id)).orderBy(asc(channels.idx));
   return rows.map((r) => (typeof r.analysis === 'string' ? JSON.parse(r.analysis) : r.analysis));
+}
+
+/** What a meter simulation needs of a capture and one channel: status, time base, unit and stored fundamental. */
+export async function findChannelTimeBase(db: Db, captureId: number, channel: number) {
+  const [row] = await db
+    .select({
+      status: captures.status,
+      errorMessage: captures.errorMessage,
+      sampleRate: captures.sampleRate,
+      sampleCount: captures.sampleCount,
+      t0: captures.t0,
+      channel: channels.idx,
+      unit: channels.unit,
+      frequency: sql<string | number | null>`JSON_VALUE(${channels.analysis}, '$.frequency')`,
+    })
+    .from(captures)
+    .leftJoin(channels, and(eq(channels.captureId, captures.id), eq(channels.idx, channel)))
+    .where(eq(captures.id, captureId));
+  if (!row) return null;
+  const frequency = row.frequency === null || row.frequency === 'null' ? null : Number(row.frequency);
+  return { ...row, frequency: Number.isFinite(frequency) ? frequency : null };
 }

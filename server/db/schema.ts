@@ -14,6 +14,11 @@ import {
   timestamp,
   varchar,
 } from 'drizzle-orm/mysql-core';
+import type { ChannelSetup } from '../../shared/schemas/channelSetup';
+import type { PowerQuality } from '../../shared/schemas/powerQuality';
+import type { SystemSpec } from '../../shared/schemas/threePhase';
+import type { FrontEndProfile } from '../../shared/schemas/meterSimulation';
+import type { ComplianceRequest } from '../../shared/schemas/compliance';
 
 /** Binary sample data: Buffer in, Buffer out. */
 const longblob = customType<{ data: Buffer; driverData: Buffer }>({
@@ -28,6 +33,9 @@ const id = () => bigint('id', { mode: 'number', unsigned: true }).autoincrement(
 
 /** A foreign key to an id: unsigned bigint, never serial (which would mean AUTO_INCREMENT). */
 const ref = (name: string) => bigint(name, { mode: 'number', unsigned: true });
+
+export const projectVisibility = ['team', 'members'] as const;
+export const memberRoles = ['engineer', 'viewer'] as const;
 
 export const users = mysqlTable('users', {
   id: id(),
@@ -44,11 +52,31 @@ export const projects = mysqlTable('projects', {
   name: varchar('name', { length: 160 }).notNull(),
   description: text('description').notNull(),
   archived: boolean('archived').notNull().default(false),
+  /** 'team': every signed-in user sees it (by their role). 'members': only its members, its creator and admins. */
+  visibility: mysqlEnum('visibility', projectVisibility).notNull().default('team'),
+  /** The declared supply voltage (V) for the project's captures, unless a capture has its own. */
+  declaredVoltage: double('declared_voltage'),
   createdBy: ref('created_by').references(() => users.id),
   /** Set on the project that receives a user's uploads when none is named. */
   defaultFor: ref('default_for').unique().references(() => users.id),
   createdAt: timestamp('created_at').notNull().defaultNow(),
 });
+
+/**
+ * Who may see a members-only project, and with what role in it. The role never lifts anyone above
+ * their own role: a viewer stays a viewer whatever the project says.
+ */
+export const projectMembers = mysqlTable(
+  'project_members',
+  {
+    projectId: ref('project_id').notNull().references(() => projects.id, { onDelete: 'cascade' }),
+    userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    role: mysqlEnum('role', memberRoles).notNull(),
+    addedBy: ref('added_by').references(() => users.id),
+    addedAt: timestamp('added_at').notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.projectId, t.userId] }), index('project_members_user').on(t.userId)],
+);
 
 export const captureStatus = ['queued', 'processing', 'ready', 'failed'] as const;
 
@@ -77,6 +105,14 @@ export const captures = mysqlTable(
     metadata: json('metadata'),
     tags: json('tags').$type<string[]>().notNull().default(sql`('[]')`),
     engineVersion: int('engine_version'),
+    /** How each channel is turned into engineering units; applied to the file's values at every (re-)analysis. */
+    channelSetup: json('channel_setup').$type<ChannelSetup[]>().notNull().default(sql`('[]')`),
+    /** Three-phase sets as a user stated them; null: found automatically. */
+    systems: json('systems').$type<SystemSpec[] | null>(),
+    /** The declared supply voltage (V) for dips and swells; null: the project's, else a suggestion. */
+    declaredVoltage: double('declared_voltage'),
+    /** Three-phase systems and voltage events of the last analysis. */
+    powerQuality: json('power_quality').$type<PowerQuality>(),
     createdAt: timestamp('created_at').notNull().defaultNow(),
     readyAt: timestamp('ready_at'),
   },
@@ -182,6 +218,21 @@ export const comparisons = mysqlTable('comparisons', {
   createdAt: timestamp('created_at').notNull().defaultNow(),
 });
 
+/**
+ * Harmonic limit checks an engineer kept with a capture, so that its report lists them. Only the request
+ * is kept: the result is computed again from the capture's current analysis, so it never goes stale.
+ */
+export const limitChecks = mysqlTable(
+  'limit_checks',
+  {
+    id: id(),
+    captureId: ref('capture_id').notNull().references(() => captures.id, { onDelete: 'cascade' }),
+    request: json('request').$type<ComplianceRequest>().notNull(),
+    createdBy: ref('created_by').references(() => users.id),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [index('limit_checks_capture').on(t.captureId)],
+);
 
 /** A read-only link to a capture or a saved comparison. Only the token's SHA-256 is stored. */
 export const shares = mysqlTable(
@@ -223,3 +274,96 @@ export const mailMessages = mysqlTable('mail_messages', {
   raw: text('raw').notNull(),
   receivedAt: timestamp('received_at').notNull().defaultNow(),
 });
+
+/**
+ * A signed-in browser. The session cookie carries a random id (the JWT's jti) of which only the SHA-256
+ * is kept, so a session can be ended on the server before its token expires.
+ */
+export const sessions = mysqlTable(
+  'sessions',
+  {
+    id: id(),
+    userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    idHash: varchar('id_hash', { length: 64 }).notNull().unique(),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    /** Updated at most once a minute, so a busy page does not write on every request. */
+    lastSeenAt: timestamp('last_seen_at').notNull().defaultNow(),
+    expiresAt: timestamp('expires_at').notNull(),
+    revokedAt: timestamp('revoked_at'),
+    /** A short description of the browser ("Firefox on Linux"), for the list of one's own sessions. */
+    userAgent: varchar('user_agent', { length: 120 }).notNull().default(''),
+  },
+  (t) => [index('sessions_user').on(t.userId)],
+);
+
+/**
+ * Counters behind the rate limits (failed sign-ins per address and per account, reset requests,
+ * shared-link reads), in the database so that every server process sharing it sees the same counts.
+ * No index on the times: the sweep of spent rows is rare, and every hit would have to update it.
+ */
+export const rateCounters = mysqlTable('rate_counters', {
+  /** What is counted and for whom, e.g. `login-ip:192.0.2.7` or `login-account:<sha256 of the e-mail>`. */
+  counterKey: varchar('counter_key', { length: 120 }).primaryKey(),
+  hits: int('hits', { unsigned: true }).notNull().default(0),
+  // An explicit default: on a server with explicit_defaults_for_timestamp off, the first NOT NULL
+  // timestamp of a table would otherwise be set to the current time by every UPDATE.
+  windowEndsAt: timestamp('window_ends_at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  /** For spaced attempts (one account's sign-ins): the next attempt is answered only from this time on. */
+  nextAllowedAt: timestamp('next_allowed_at', { fsp: 3 }),
+});
+
+/**
+ * API tokens for scripts and test rigs (`Authorization: Bearer crl_…`). Only the SHA-256 of a token is
+ * kept; it is looked up by that hash, so comparing never runs over secret bytes one by one.
+ */
+export const apiTokens = mysqlTable(
+  'api_tokens',
+  {
+    id: id(),
+    userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 120 }).notNull(),
+    tokenHash: varchar('token_hash', { length: 64 }).notNull().unique(),
+    /** The token's last four characters, so its owner can tell tokens apart; 168 random bits stay unknown. */
+    hint: varchar('hint', { length: 8 }).notNull(),
+    readOnly: boolean('read_only').notNull().default(false),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    /** Updated at most once a minute, so a busy rig does not write on every request. */
+    lastUsedAt: timestamp('last_used_at'),
+    expiresAt: timestamp('expires_at').notNull(),
+  },
+  (t) => [index('api_tokens_user').on(t.userId)],
+);
+
+/** A project's named probes and clamps, applied to a channel in one click (e.g. "clamp 100 mV/A → A"). */
+export const probePresets = mysqlTable(
+  'probe_presets',
+  {
+    id: id(),
+    projectId: ref('project_id').notNull().references(() => projects.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 80 }).notNull(),
+    unit: varchar('unit', { length: 8 }).notNull(),
+    scale: double('scale').notNull(),
+    offset: double('offset').notNull().default(0),
+    invert: boolean('invert').notNull().default(false),
+    createdBy: ref('created_by').references(() => users.id),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [index('probe_presets_project').on(t.projectId)],
+);
+
+/** A meter's front end saved for a project's team, or in one person's account. */
+export const meterProfiles = mysqlTable(
+  'meter_profiles',
+  {
+    id: id(),
+    name: varchar('name', { length: 120 }).notNull(),
+    scope: mysqlEnum('scope', ['project', 'account']).notNull(),
+    /** The project of a project profile; null for an account profile. */
+    projectId: ref('project_id').references(() => projects.id, { onDelete: 'cascade' }),
+    /** Its creator, who owns it when it is an account profile. */
+    createdBy: ref('created_by').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    profile: json('profile').$type<FrontEndProfile>().notNull(),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [index('meter_profiles_project').on(t.projectId), index('meter_profiles_creator').on(t.createdBy)],
+);

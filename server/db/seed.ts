@@ -8,6 +8,7 @@ import { findUserByEmail, insertUser } from './userRepository';
 import { eq } from 'drizzle-orm';
 import { insertProject, listProjects } from './projectRepository';
 import { captures } from './schema';
+import { seedMeterProfiles } from './seedMeterProfiles';
 import type { Role, User } from '../../shared/schemas/user';
 
 /** The invented demo scenario's people; every one signs in with DEMO_PASSWORD. */
@@ -33,6 +34,7 @@ export async function seedDemo(ctx: AppContext): Promise<void> {
     createdBy: ids[1],
   });
   await addDemoCaptures(ctx, { id: ids[1], ...DEMO_USERS[1] }, projectId);
+  await seedMeterProfiles(ctx.db, projectId, ids[1]);
 }
 
 /**

@@ -49,6 +49,25 @@ const modifiedSine = (f: number, peak: number, onShare: number) => (t: number) =
   return on ? (p < 0.5 ? peak : -peak) : 0;
 };
 
+const DEG = Math.PI / 180;
+
+/**
+ * An invented switchboard incomer during a lift motor start: slightly unbalanced phase voltages
+ * (231 V∠0°, 226 V∠−119°, 234 V∠121° RMS) that dip to 72 % from 0.2 s to 0.3 s while the motor draws
+ * about 4.5 times its running current at a poorer power factor. The dip starts and ends on whole
+ * cycles, so the whole-record phasors keep the designed unbalance (u2 1.592 %, u0 0.442 %, NEMA 1.443 %).
+ */
+function switchboardPhase(k: 0 | 1 | 2) {
+  const v = [231, 226, 234][k];
+  const vAngle = [0, -119, 121][k] * DEG;
+  const iRms = [38, 40, 37][k];
+  const starting = (t: number) => t >= 0.2 && t < 0.3;
+  return {
+    voltage: (t: number) => (starting(t) ? 0.72 : 1) * mains(50, v * Math.SQRT2, vAngle)(t),
+    current: (t: number) => (starting(t) ? mains(50, 4.5 * iRms * Math.SQRT2, vAngle - 70 * DEG)(t) : mains(50, iRms * Math.SQRT2, vAngle - 25 * DEG)(t)),
+  };
+}
+
 const triangleCarrier = (fc: number) => (t: number) => 2 * Math.abs(2 * ((t * fc) % 1) - 1) - 1;
 
 export function demoCaptures(): DemoCapture[] {
@@ -101,6 +120,13 @@ export function demoCaptures(): DemoCapture[] {
             return Math.max(-340, Math.min(340, v));
           },
         },
+      ],
+    },
+    {
+      file: 'switchboard-three-phase-motor-start.csv', name: 'Switchboard MSB-2 incomer: lift motor start, three phases', tags: ['supply', 'three-phase', 'dip'], sampleRate: 10000, seconds: 0.6,
+      channels: [
+        ...([0, 1, 2] as const).map((k) => ({ name: `L${k + 1}-N`, unit: 'V', at: (t: number, n: () => number) => switchboardPhase(k).voltage(t) + 0.3 * n() })),
+        ...([0, 1, 2] as const).map((k) => ({ name: `I L${k + 1}`, unit: 'A', at: (t: number, n: () => number) => switchboardPhase(k).current(t) + 0.05 * n() })),
       ],
     },
   ];

@@ -8,8 +8,9 @@ import { captures, jobs } from '../db/schema';
 import { compressOriginal, readableOriginal } from '../services/originalFiles';
 import { IngestFailure, IngestWorkerClient } from '../workers/IngestWorkerClient';
 import { maxSamples, taskBudgetMs } from './ingestLimits';
-import { claimJob, heartbeat, MAX_ATTEMPTS, ownedBy, releaseJob, type ClaimedJob } from './jobQueue';
+import { claimJob, enqueue, heartbeat, MAX_ATTEMPTS, ownedBy, releaseJob, type ClaimedJob } from './jobQueue';
 import { unexpectedFailure } from './processingFailure';
+import { runSetupOf } from './runSetup';
 import { storeFailure, storeReady } from './storeOutcome';
 
 const POLL_MS = 500;
@@ -124,11 +125,15 @@ export class CaptureProcessor {
     try {
       const t0 = performance.now();
       readable = await readableOriginal(this.ctx, capture.id);
-      const request = { file: readable.file, sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint, limits: { maxSamples: maxSamples(config) } };
+      const setup = await runSetupOf(this.ctx.db, capture);
+      const request = { file: readable.file, sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint, limits: { maxSamples: maxSamples(config) }, ...setup };
       const result = await slot.ingest(request, taskBudgetMs(config, capture.sizeBytes));
       const t1 = performance.now();
       if (!this.running) return await this.giveBack(job);
       await storeReady(db, job, this.workerId, result);
+      // A setup changed while this run used the old one: its own request was folded into this job, so run again.
+      const now = await findCaptureRow(db, capture.id);
+      if (now && JSON.stringify(await runSetupOf(this.ctx.db, now)) !== JSON.stringify(setup) && (await enqueue(db, capture.id, 'reanalyse'))) this.nudge();
       if (process.env.CRESTLINE_TRACE) console.log(`capture ${capture.id}: read and analysed in ${(t1 - t0).toFixed(0)} ms, stored in ${(performance.now() - t1).toFixed(0)} ms`);
       this.inBackground(compressOriginal(this.ctx, capture.id).catch((err) => console.error(`compressing the original of capture ${capture.id}:`, err)));
     } catch (err) {

@@ -1,7 +1,11 @@
 import type { Config } from '../config';
 
-/** Bytes one sample takes while a capture is processed: Float64 as read, Float32 packed, and the pyramid. */
-const BYTES_PER_SAMPLE_IN_FLIGHT = 16;
+/**
+ * Bytes one channel sample may take while a capture is processed, in the worst layout: the reader keeps
+ * Float64 columns for the channel, a time column, an index column and a line number per row (one
+ * channel: four Float64 per sample), then Float32 chunks and the pyramid are packed beside them.
+ */
+const BYTES_PER_SAMPLE_IN_FLIGHT = 40;
 
 /** Time allowed to each parse or analysis task of a file: the floor plus a share per MiB. */
 export function taskBudgetMs(config: Config, sizeBytes: number): number {

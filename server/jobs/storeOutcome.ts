@@ -71,6 +71,7 @@ export function storeReady(db: Db, job: ClaimedJob, workerId: string, r: IngestR
           detected: r.detected,
           metadata: r.metadata,
           engineVersion: r.engineVersion,
+          powerQuality: { systems: r.systems, voltageEvents: r.channels.flatMap((c, channel) => (c.voltageEvents ? [{ channel, ...c.voltageEvents }] : [])) },
           readyAt: sql`NOW()`,
         })
         .where(eq(captures.id, job.captureId));

@@ -12,7 +12,11 @@ import { AppError, notFound } from '../errors';
 import { allow, currentUser } from '../middleware/auth';
 import { acceptUpload, captureAnalysis, captureDetail, captureList, deleteCapture, provideSampleRate, reanalyseOutdated, updateCapture } from '../services/captureService';
 import { originalStream } from '../services/originalFiles';
-import { sampleWindow } from '../services/sampleWindowService';
+import { sampleWindowData } from '../services/sampleWindowService';
+import { sendSamples } from './sendSamples';
+import { hashingDiskStorage } from '../services/hashingStorage';
+import { spanFigures } from '../services/spanFiguresService';
+import { SpanFiguresQuery } from '../../shared/schemas/spanFigures';
 
 const formatBytes = (n: number) => {
   const units = ['bytes', 'KiB', 'MiB', 'GiB', 'TiB'];
@@ -24,11 +28,15 @@ const formatBytes = (n: number) => {
   return `${Number(n.toPrecision(3))} ${units[i]}`;
 };
 
+/**
+ * Routes under /captures/:id pass projectScopes first: a capture in a project hidden from the user
+ * answers 404, and allow() checks the user's role in the capture's project.
+ */
 export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
   const tmp = path.join(ctx.config.DATA_DIR, 'uploads');
   mkdirSync(tmp, { recursive: true });
   // multer streams the file to disk; it is never held in memory whole.
-  const upload = multer({ dest: tmp, limits: { fileSize: ctx.config.UPLOAD_LIMIT_BYTES, files: 1, fields: 10 } }).single('file');
+  const upload = multer({ storage: hashingDiskStorage(tmp), limits: { fileSize: ctx.config.UPLOAD_LIMIT_BYTES, files: 1, fields: 10 } }).single('file');
   const limit = formatBytes(ctx.config.UPLOAD_LIMIT_BYTES);
 
   return Router()
@@ -52,7 +60,7 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
       }
     })
     .get('/captures', async (req, res) => {
-      res.json(await captureList(ctx, CaptureListQuery.parse(req.query)));
+      res.json(await captureList(ctx, currentUser(req), CaptureListQuery.parse(req.query)));
     })
     .get('/captures/:id', async (req, res) => {
       res.json(await captureDetail(ctx, IdParam.parse(req.params).id));
@@ -72,8 +80,11 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
     .get('/captures/:id/analysis', async (req, res) => {
       res.json(await captureAnalysis(ctx, IdParam.parse(req.params).id));
     })
+    .get('/captures/:id/figures', async (req, res) => {
+      res.json(await spanFigures(ctx, IdParam.parse(req.params).id, SpanFiguresQuery.parse(req.query)));
+    })
     .get('/captures/:id/samples', async (req, res) => {
-      res.json(await sampleWindow(ctx, IdParam.parse(req.params).id, SamplesQuery.parse(req.query)));
+      sendSamples(req, res, await sampleWindowData(ctx, IdParam.parse(req.params).id, SamplesQuery.parse(req.query)));
     })
     .get('/captures/:id/original', async (req, res) => {
       const row = await findCaptureRow(ctx.db, IdParam.parse(req.params).id);

@@ -5,10 +5,11 @@ import type { AppContext } from '../context';
 import { allow, currentUser } from '../middleware/auth';
 import { getComparison, listComparisons, saveComparison } from '../services/comparisonService';
 
+/** Routes under /comparisons/:id pass projectScopes first: one that includes a hidden capture answers 404. */
 export function comparisonRoutes(ctx: AppContext): Router {
   return Router()
-    .get('/comparisons', async (_req, res) => {
-      res.json({ items: await listComparisons(ctx) });
+    .get('/comparisons', async (req, res) => {
+      res.json({ items: await listComparisons(ctx, currentUser(req)) });
     })
     .get('/comparisons/:id', async (req, res) => {
       res.json(await getComparison(ctx, IdParam.parse(req.params).id));

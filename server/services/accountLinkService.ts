@@ -4,9 +4,11 @@ import { and, eq, gt, isNull, sql } from 'drizzle-orm';
 import type { InviteUserRequest, SetPasswordRequest, User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
 import { oneTimeTokens, users } from '../db/schema';
-import { findUserByEmail, insertUser } from '../db/userRepository';
+import { revokeUserSessions } from '../db/sessionRepository';
+import { findUserByEmail, findUserById, insertUser } from '../db/userRepository';
 import { AppError } from '../errors';
 import { inviteMail, resetMail } from '../mail/messages';
+import { clearAccountThrottle } from './loginThrottle';
 import { hashSecretToken, newSecretToken } from './secretTokens';
 
 const INVITE_HOURS = 7 * 24;
@@ -37,11 +39,15 @@ export async function requestPasswordReset(ctx: AppContext, email: string): Prom
   await ctx.mailer.send(resetMail(user.email, link.url, link.expiresAt));
 }
 
-/** Uses a one-time link: it must be unused and unexpired, and it is spent in the same transaction. */
+/**
+ * Uses a one-time link: it must be unused and unexpired, and it is spent in the same transaction that
+ * sets the password and ends every session of the account (whoever made the reset necessary may hold
+ * one). The owner's failed sign-ins are forgotten.
+ */
 export async function setPasswordWithLink(ctx: AppContext, req: SetPasswordRequest): Promise<void> {
   const hash = hashSecretToken(req.token);
   const passwordHash = await bcrypt.hash(req.password, ctx.config.BCRYPT_COST);
-  await ctx.db.transaction(async (tx) => {
+  const userId = await ctx.db.transaction(async (tx) => {
     const [row] = await tx
       .select({ id: oneTimeTokens.id, userId: oneTimeTokens.userId })
       .from(oneTimeTokens)
@@ -50,5 +56,9 @@ export async function setPasswordWithLink(ctx: AppContext, req: SetPasswordReque
     if (!row) throw new AppError(400, 'link_invalid', 'This link has been used already or has expired; ask for a new one');
     await tx.update(oneTimeTokens).set({ usedAt: sql`NOW()` }).where(eq(oneTimeTokens.id, row.id));
     await tx.update(users).set({ passwordHash }).where(eq(users.id, row.userId));
+    await revokeUserSessions(tx, row.userId);
+    return row.userId;
   });
+  const user = await findUserById(ctx.db, userId);
+  if (user) await clearAccountThrottle(ctx, user.email);
 }

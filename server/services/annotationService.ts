@@ -1,10 +1,10 @@
-import { and, asc, eq, ne } from 'drizzle-orm';
+import { and, asc, eq, isNull, ne } from 'drizzle-orm';
 import type { Annotation, Comment, CreateAnnotationRequest, UpdateAnnotationRequest } from '../../shared/schemas/annotation';
 import type { User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
 import { findCaptureRow } from '../db/captureRepository';
 import { annotations, comments, users } from '../db/schema';
-import { forbidden, notFound } from '../errors';
+import { AppError, forbidden, notFound } from '../errors';
 
 const annotationColumns = {
   id: annotations.id,
@@ -70,21 +70,33 @@ export async function createAnnotation(ctx: AppContext, user: User, captureId: n
 }
 
 /**
- * Edits, accepts or dismisses a mark. A user's own mark: its author or an admin. A finder's
- * suggestion: any engineer or admin, since it belongs to nobody.
+ * Whoever owns a mark: its author, or for a finder suggestion whoever accepted it. An unaccepted
+ * suggestion belongs to nobody.
+ */
+const ownerOf = (a: Annotation) => a.createdBy?.id ?? null;
+const mayChange = (user: User, a: Annotation) => user.role === 'admin' || ownerOf(a) === user.id;
+
+/**
+ * Edits, accepts or dismisses a mark. An owned mark: its owner or an admin. A suggestion nobody has
+ * accepted yet: any engineer or admin, and accepting it makes the accepter its owner; once owned, the
+ * mark cannot be taken over by accepting it again.
  */
 export async function updateAnnotation(ctx: AppContext, user: User, id: number, req: UpdateAnnotationRequest): Promise<Annotation> {
   const a = await findAnnotation(ctx, id);
-  if (a.source === 'user' && user.role !== 'admin' && a.createdBy?.id !== user.id) throw forbidden('Only its author or an admin may change this mark');
+  const owner = ownerOf(a);
+  if (owner !== null && !mayChange(user, a)) throw forbidden('Only whoever made or accepted this mark, or an admin, may change it');
   const patch: Partial<typeof annotations.$inferInsert> = { ...req };
-  if (a.source === 'finder' && req.state === 'active') patch.createdBy = user.id;
-  await ctx.db.update(annotations).set(patch).where(eq(annotations.id, id));
+  if (owner === null && req.state === 'active') patch.createdBy = user.id;
+  // The condition repeats the owner check in the write, so two engineers accepting at once cannot both win.
+  const stillAsRead = owner === null ? isNull(annotations.createdBy) : eq(annotations.createdBy, owner);
+  const [result] = await ctx.db.update(annotations).set(patch).where(and(eq(annotations.id, id), stillAsRead));
+  if (result.affectedRows === 0) throw new AppError(409, 'changed_meanwhile', 'Someone else changed this mark meanwhile; reload and try again');
   return findAnnotation(ctx, id);
 }
 
 export async function deleteAnnotation(ctx: AppContext, user: User, id: number): Promise<void> {
   const a = await findAnnotation(ctx, id);
-  if (user.role !== 'admin' && a.createdBy?.id !== user.id) throw forbidden('Only its author or an admin may delete this mark');
+  if (!mayChange(user, a)) throw forbidden('Only whoever made or accepted this mark, or an admin, may delete it');
   await ctx.db.delete(annotations).where(eq(annotations.id, id));
 }
 

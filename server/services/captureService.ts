@@ -2,20 +2,24 @@ import { eq } from 'drizzle-orm';
 import { rm } from 'node:fs/promises';
 import { ENGINE_VERSION } from '../../shared/analysis';
 import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
+import type { ChannelSetup } from '../../shared/schemas/channelSetup';
 import type { User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
-import { channelAnalyses, findCaptureBySha, findCaptureDetail, findCaptureRow, listCaptures } from '../db/captureRepository';
+import { channelAnalyses, powerQualityOf, findCaptureBySha, findCaptureDetail, findCaptureRow, listCaptures } from '../db/captureRepository';
 import { findProject } from '../db/projectRepository';
 import { captures } from '../db/schema';
 import { AppError, forbidden, notFound } from '../errors';
 import { enqueue } from '../jobs/jobQueue';
 import { keepOriginal, removeCaptureFiles, sha256OfFile } from './originalFiles';
 import { defaultProjectId } from './projectService';
+import { requireRoleIn, visibleProject } from './visibility';
 
 export interface UploadedFile {
   path: string;
   originalname: string;
   size: number;
+  /** Taken while the upload streamed in (hashingDiskStorage); computed here when absent. */
+  sha256?: string;
 }
 
 /**
@@ -27,14 +31,16 @@ export async function acceptUpload(
   ctx: AppContext,
   user: User,
   file: UploadedFile,
-  fields: { name?: string; projectId?: number; sampleRate?: number },
+  fields: { name?: string; projectId?: number; sampleRate?: number; channelSetup?: ChannelSetup[] },
 ): Promise<UploadResponse> {
   try {
     const projectId = fields.projectId ?? (await defaultProjectId(ctx, user.id, user.name));
+    // The project is named in the form, not the path, so projectScopes has not seen it.
+    requireRoleIn(await visibleProject(ctx, user, projectId), 'admin', 'engineer');
     const project = await findProject(ctx.db, projectId);
     if (!project) throw notFound('Project');
     if (project.archived) throw new AppError(409, 'project_archived', 'That project is archived; restore it before adding captures');
-    const sha256 = await sha256OfFile(file.path);
+    const sha256 = file.sha256 ?? (await sha256OfFile(file.path));
     const existing = await findCaptureBySha(ctx.db, projectId, sha256);
     if (existing) return { id: existing.id, status: existing.status, duplicate: true };
     const name = fields.name || file.originalname.replace(/\.[^.]+$/, '') || 'Capture';
@@ -43,7 +49,7 @@ export async function acceptUpload(
       const id = await ctx.db.transaction(async (tx) => {
         const [{ id }] = await tx
           .insert(captures)
-          .values({ projectId, name: name.slice(0, 200), uploadedBy: user.id, originalName: file.originalname.slice(0, 255), sha256, sizeBytes: file.size, sampleRateHint: fields.sampleRate ?? null })
+          .values({ projectId, name: name.slice(0, 200), uploadedBy: user.id, originalName: file.originalname.slice(0, 255), sha256, sizeBytes: file.size, sampleRateHint: fields.sampleRate ?? null, channelSetup: fields.channelSetup ?? [] })
           .$returningId();
         const relative = await keepOriginal(ctx, file.path, id);
         keptAs = id;
@@ -62,8 +68,8 @@ export async function acceptUpload(
   }
 }
 
-export async function captureList(ctx: AppContext, q: CaptureListQuery): Promise<CaptureList> {
-  const { items, total } = await listCaptures(ctx.db, q);
+export async function captureList(ctx: AppContext, user: User, q: CaptureListQuery): Promise<CaptureList> {
+  const { items, total } = await listCaptures(ctx.db, q, user);
   return { items, total, page: q.page, pageSize: q.pageSize };
 }
 
@@ -79,11 +85,12 @@ export async function captureAnalysis(ctx: AppContext, id: number): Promise<Anal
   if (row.status !== 'ready') {
     throw new AppError(409, 'not_ready', row.status === 'failed' ? `The capture failed: ${row.errorMessage}` : `The capture is ${row.status}; its analysis is not ready yet`);
   }
-  return { engineVersion: row.engineVersion ?? 0, channels: (await channelAnalyses(ctx.db, id)) as AnalysisResponse['channels'] };
+  const { systems, voltageEvents } = await powerQualityOf(ctx.db, id);
+  return { engineVersion: row.engineVersion ?? 0, channels: (await channelAnalyses(ctx.db, id)) as AnalysisResponse['channels'], systems, voltageEvents };
 }
 
 /** Only the uploader or an admin may change or delete a capture. */
-async function ownedCapture(ctx: AppContext, user: User, id: number) {
+export async function ownedCapture(ctx: AppContext, user: User, id: number) {
   const row = await findCaptureRow(ctx.db, id);
   if (!row) throw notFound('Capture');
   if (user.role !== 'admin' && row.uploadedBy !== user.id) throw forbidden('Only its uploader or an admin may change this capture');

@@ -1,8 +1,9 @@
-import { desc, eq, inArray } from 'drizzle-orm';
+import { and, desc, eq, inArray } from 'drizzle-orm';
 import { Comparison, ComparisonSettings, type SaveComparisonRequest } from '../../shared/schemas/comparison';
 import type { User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
 import { captures, comparisons, users } from '../db/schema';
+import { comparisonVisibleTo, projectVisibleTo } from '../db/visibilityRepository';
 import { AppError, notFound } from '../errors';
 
 const columns = { id: comparisons.id, name: comparisons.name, captureIds: comparisons.captureIds, settings: comparisons.settings, createdById: comparisons.createdBy, createdByName: users.name, createdAt: comparisons.createdAt };
@@ -18,8 +19,12 @@ const toComparison = (r: Row): Comparison =>
     createdAt: r.createdAt.toISOString(),
   });
 
+/** Saves a comparison of captures the user can see; one they cannot is answered as one that does not exist. */
 export async function saveComparison(ctx: AppContext, user: User, req: SaveComparisonRequest): Promise<Comparison> {
-  const found = await ctx.db.select({ id: captures.id }).from(captures).where(inArray(captures.id, req.captureIds));
+  const found = await ctx.db
+    .select({ id: captures.id })
+    .from(captures)
+    .where(and(inArray(captures.id, req.captureIds), projectVisibleTo(user, captures.projectId)));
   if (found.length !== new Set(req.captureIds).size) throw new AppError(400, 'invalid_request', 'Some of those captures do not exist');
   const [{ id }] = await ctx.db.insert(comparisons).values({ name: req.name, captureIds: req.captureIds, settings: req.settings, createdBy: user.id }).$returningId();
   return getComparison(ctx, id);
@@ -31,7 +36,14 @@ export async function getComparison(ctx: AppContext, id: number): Promise<Compar
   return toComparison(row as Row);
 }
 
-export async function listComparisons(ctx: AppContext): Promise<Comparison[]> {
-  const rows = await ctx.db.select(columns).from(comparisons).leftJoin(users, eq(users.id, comparisons.createdBy)).orderBy(desc(comparisons.createdAt)).limit(200);
+/** The latest comparisons `user` may see: one that includes any capture hidden from them is left out. */
+export async function listComparisons(ctx: AppContext, user: User): Promise<Comparison[]> {
+  const rows = await ctx.db
+    .select(columns)
+    .from(comparisons)
+    .leftJoin(users, eq(users.id, comparisons.createdBy))
+    .where(comparisonVisibleTo(user))
+    .orderBy(desc(comparisons.createdAt))
+    .limit(200);
   return rows.map((r) => toComparison(r as Row));
 }

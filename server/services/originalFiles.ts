@@ -1,6 +1,6 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { createReadStream, createWriteStream } from 'node:fs';
-import { link, mkdir, readdir, rename, rm } from 'node:fs/promises';
+import { copyFile, link, mkdir, readdir, rename, rm } from 'node:fs/promises';
 import path from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import { createGunzip, createGzip } from 'node:zlib';
@@ -16,11 +16,25 @@ export async function sha256OfFile(file: string): Promise<string> {
   return hash.digest('hex');
 }
 
-/** Moves an upload into the originals folder; returns its path relative to DATA_DIR. */
+/** Where kept originals live: FILES_DIR (shared by every process), else DATA_DIR. */
+export const filesRoot = (ctx: AppContext) => ctx.config.FILES_DIR ?? ctx.config.DATA_DIR;
+
+/** Renames, or copies where the two folders are on different file systems (a shared FILES_DIR mount). */
+async function moveFile(from: string, to: string): Promise<void> {
+  try {
+    await rename(from, to);
+  } catch (err) {
+    if ((err as NodeJS.ErrnoException).code !== 'EXDEV') throw err;
+    await copyFile(from, to);
+    await rm(from, { force: true });
+  }
+}
+
+/** Moves an upload into the originals folder; returns its path relative to filesRoot. */
 export async function keepOriginal(ctx: AppContext, tempFile: string, captureId: number): Promise<string> {
   const relative = path.join(ORIGINALS_DIR, `${captureId}.csv`);
-  await mkdir(path.join(ctx.config.DATA_DIR, ORIGINALS_DIR), { recursive: true });
-  await rename(tempFile, path.join(ctx.config.DATA_DIR, relative));
+  await mkdir(path.join(filesRoot(ctx), ORIGINALS_DIR), { recursive: true });
+  await moveFile(tempFile, path.join(filesRoot(ctx), relative));
   return relative;
 }
 
@@ -37,12 +51,12 @@ export async function compressOriginal(ctx: AppContext, captureId: number): Prom
   const [row] = await ctx.db.select({ originalPath: captures.originalPath }).from(captures).where(eq(captures.id, captureId));
   if (!row?.originalPath || row.originalPath.endsWith('.gz')) return;
   const plain = row.originalPath;
-  const source = path.join(ctx.config.DATA_DIR, plain);
+  const source = path.join(filesRoot(ctx), plain);
   const target = `${plain}.gz`;
-  const partial = path.join(ctx.config.DATA_DIR, `${target}.${randomBytes(4).toString('hex')}.part`);
+  const partial = path.join(filesRoot(ctx), `${target}.${randomBytes(4).toString('hex')}.part`);
   try {
     await pipeline(createReadStream(source), createGzip({ level: 6 }), createWriteStream(partial, { mode: 0o600 }));
-    await rename(partial, path.join(ctx.config.DATA_DIR, target));
+    await rename(partial, path.join(filesRoot(ctx), target));
   } catch (err) {
     await rm(partial, { force: true });
     // A file went away: another run compressed it, or the capture was deleted (with its files).
@@ -64,7 +78,7 @@ export async function compressOriginal(ctx: AppContext, captureId: number): Prom
 
 /** Removes every file kept for a capture (plain or compressed original); call after the delete committed. */
 export async function removeCaptureFiles(ctx: AppContext, captureId: number): Promise<void> {
-  const dir = path.join(ctx.config.DATA_DIR, ORIGINALS_DIR);
+  const dir = path.join(filesRoot(ctx), ORIGINALS_DIR);
   const prefix = `${captureId}.csv`;
   const names = await readdir(dir).catch(() => [] as string[]);
   await Promise.all(names.filter((n) => n === prefix || n.startsWith(`${prefix}.`)).map((n) => rm(path.join(dir, n), { force: true })));
@@ -82,11 +96,11 @@ export async function readableOriginal(ctx: AppContext, captureId: number): Prom
   for (let attempt = 1; ; attempt++) {
     const [row] = await ctx.db.select({ originalPath: captures.originalPath }).from(captures).where(eq(captures.id, captureId));
     if (!row?.originalPath) throw new Error(`capture ${captureId} has no original file`);
-    const source = path.join(ctx.config.DATA_DIR, row.originalPath);
+    const source = path.join(filesRoot(ctx), row.originalPath);
     const tmp = path.join(tmpDir, `${captureId}-${randomBytes(6).toString('hex')}.csv`);
     try {
       if (row.originalPath.endsWith('.gz')) await pipeline(createReadStream(source), createGunzip(), createWriteStream(tmp, { mode: 0o600 }));
-      else await link(source, tmp);
+      else await link(source, tmp).catch((err: NodeJS.ErrnoException) => (err.code === 'EXDEV' ? copyFile(source, tmp) : Promise.reject(err)));
       return { file: tmp, done: () => rm(tmp, { force: true }) };
     } catch (err) {
       await rm(tmp, { force: true });
@@ -97,6 +111,6 @@ export async function readableOriginal(ctx: AppContext, captureId: number): Prom
 
 /** The original as a stream of its text, whether kept plain or compressed. */
 export function originalStream(ctx: AppContext, relative: string): NodeJS.ReadableStream {
-  const raw = createReadStream(path.join(ctx.config.DATA_DIR, relative));
+  const raw = createReadStream(path.join(filesRoot(ctx), relative));
   return relative.endsWith('.gz') ? raw.pipe(createGunzip()) : raw;
 }

@@ -4,15 +4,15 @@ import type { AppContext } from '../context';
 import { captures, channels, overviews, sampleChunks } from '../db/schema';
 import { CHUNK_SAMPLES, overviewBucketSizes } from './samplePacking';
 import { AppError, notFound } from '../errors';
+import { samplesToJson, type SampleWindowData } from '../../shared/samples/samplesBinary';
 
 const toFloat32 = (b: Buffer) => new Float32Array(b.buffer.slice(b.byteOffset, b.byteOffset + b.byteLength));
-const finite = (v: number) => (Number.isNaN(v) ? null : v);
 
 /**
  * Samples [start, start+count) of a channel. Chunk k holds samples [k·CHUNK_SAMPLES, (k+1)·CHUNK_SAMPLES),
  * so the chunks needed follow by arithmetic, and only their needed bytes are read.
  */
-async function readSamples(ctx: AppContext, captureId: number, channel: number, start: number, count: number): Promise<Float32Array> {
+export async function readSamples(ctx: AppContext, captureId: number, channel: number, start: number, count: number): Promise<Float32Array> {
   const out = new Float32Array(count);
   const first = Math.floor(start / CHUNK_SAMPLES);
   const last = Math.floor((start + count - 1) / CHUNK_SAMPLES);
@@ -29,19 +29,20 @@ async function readSamples(ctx: AppContext, captureId: number, channel: number, 
 }
 
 /** Min and max of consecutive groups of `group` (min, max) pairs; NaN-only groups stay NaN. */
-function mergeBuckets(pairs: Float32Array, group: number): { min: (number | null)[]; max: (number | null)[] } {
+function mergeBuckets(pairs: Float32Array, group: number): { min: Float32Array; max: Float32Array } {
   const n = pairs.length / 2;
-  const min: (number | null)[] = [];
-  const max: (number | null)[] = [];
-  for (let g = 0; g < n; g += group) {
+  const buckets = Math.ceil(n / group);
+  const min = new Float32Array(buckets);
+  const max = new Float32Array(buckets);
+  for (let g = 0, k = 0; g < n; g += group, k++) {
     let lo = Infinity;
     let hi = -Infinity;
     for (let j = g; j < Math.min(n, g + group); j++) {
       if (pairs[2 * j] < lo) lo = pairs[2 * j];
       if (pairs[2 * j + 1] > hi) hi = pairs[2 * j + 1];
     }
-    min.push(lo === Infinity ? null : lo);
-    max.push(hi === -Infinity ? null : hi);
+    min[k] = lo === Infinity ? NaN : lo;
+    max[k] = hi === -Infinity ? NaN : hi;
   }
   return { min, max };
 }
@@ -49,9 +50,10 @@ function mergeBuckets(pairs: Float32Array, group: number): { min: (number | null
 /**
  * A span of one channel at the resolution of the screen: the samples themselves when there are no more
  * than `points`, else min/max per bucket from the stored pyramid (or from the samples, for spans too
- * short for the finest level), so a 10-million-sample capture answers as fast as a small one.
+ * short for the finest level), so a 10-million-sample capture answers as fast as a small one. Typed
+ * arrays: the route sends them as JSON or as binary (samplesBinary.ts), as the client asks.
  */
-export async function sampleWindow(ctx: AppContext, captureId: number, q: SamplesQuery): Promise<SamplesResponse> {
+export async function sampleWindowData(ctx: AppContext, captureId: number, q: SamplesQuery): Promise<SampleWindowData> {
   // One query for the capture and the channel: this endpoint answers every zoom step.
   const [capture] = await ctx.db
     .select({ status: captures.status, sampleCount: captures.sampleCount, sampleRate: captures.sampleRate, t0: captures.t0, channel: channels.idx })
@@ -69,8 +71,7 @@ export async function sampleWindow(ctx: AppContext, captureId: number, q: Sample
   const count = i1 - i0;
   const base = { channel: q.channel, startIndex: i0, sampleCount: count };
   if (count <= q.points) {
-    const values = Array.from(await readSamples(ctx, captureId, q.channel, i0, count), finite);
-    return { ...base, mode: 'raw', t0S: t0 + i0 * dt, stepS: dt, values };
+    return { ...base, mode: 'raw', t0S: t0 + i0 * dt, stepS: dt, values: await readSamples(ctx, captureId, q.channel, i0, count) };
   }
   const perPoint = count / q.points;
   const bucket = overviewBucketSizes(n).filter((b) => b <= perPoint).pop();
@@ -89,4 +90,9 @@ export async function sampleWindow(ctx: AppContext, captureId: number, q: Sample
     .where(and(eq(overviews.captureId, captureId), eq(overviews.channelIdx, q.channel), eq(overviews.bucketSize, bucket)));
   const group = Math.ceil((b1 - b0) / q.points);
   return { ...base, startIndex: b0 * bucket, mode: 'minmax', t0S: t0 + b0 * bucket * dt, stepS: group * bucket * dt, ...mergeBuckets(toFloat32(row.bytes), group) };
+}
+
+/** The JSON answer of `sampleWindowData`, for clients that do not ask for binary. */
+export async function sampleWindow(ctx: AppContext, captureId: number, q: SamplesQuery): Promise<SamplesResponse> {
+  return samplesToJson(await sampleWindowData(ctx, captureId, q));
 }

@@ -1,5 +1,6 @@
 import { and, desc, eq, gt, isNull, sql } from 'drizzle-orm';
-import type { CreateShareRequest, ShareCreated, ShareInfo, SharedView } from '../../shared/schemas/share';
+import type { SamplesQuery } from '../../shared/schemas/capture';
+import { SHARED_MAX_POINTS, type CreateShareRequest, type ShareCreated, type ShareInfo, type SharedView } from '../../shared/schemas/share';
 import type { User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
 import { shares, users } from '../db/schema';
@@ -8,6 +9,8 @@ import { shareMail } from '../mail/messages';
 import { listAnnotations } from './annotationService';
 import { captureAnalysis, captureDetail } from './captureService';
 import { getComparison } from './comparisonService';
+import { sampleWindowData } from './sampleWindowService';
+import type { SampleWindowData } from '../../shared/samples/samplesBinary';
 import { hashSecretToken, newSecretToken, sameHash } from './secretTokens';
 
 export type ShareTarget = { captureId: number } | { comparisonId: number };
@@ -81,4 +84,10 @@ export async function sharedCaptureIds(ctx: AppContext, token: string): Promise<
   const share = await openShare(ctx, token, false);
   if (share.captureId) return [share.captureId];
   return (await getComparison(ctx, share.comparisonId as number)).captureIds;
+}
+
+/** Samples of a capture the token opens, at most SHARED_MAX_POINTS of them (a larger `points` is lowered, not refused, so the shared page keeps working). */
+export async function sharedSamples(ctx: AppContext, token: string, captureId: number, q: SamplesQuery): Promise<SampleWindowData> {
+  if (!(await sharedCaptureIds(ctx, token)).includes(captureId)) throw notFound('This shared capture');
+  return sampleWindowData(ctx, captureId, { ...q, points: Math.min(q.points, SHARED_MAX_POINTS) });
 }

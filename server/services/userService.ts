@@ -1,8 +1,10 @@
 import bcrypt from 'bcryptjs';
 import type { CreateUserRequest, UpdateUserRequest, User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
+import { deleteUserTokens } from '../db/apiTokenRepository';
 import { findUserByEmail, findUserById, insertUser, listUsers, updateUser } from '../db/userRepository';
 import { AppError, notFound } from '../errors';
+import { endAllSessions } from './sessionService';
 
 const publicUser = (u: User & { active?: boolean }): User => ({ id: u.id, email: u.email, name: u.name, role: u.role, active: u.active });
 
@@ -24,7 +26,19 @@ export async function changeUser(ctx: AppContext, actorId: number, id: number, r
     throw new AppError(400, 'self_lockout', 'You cannot deactivate yourself or give up your own admin role');
   }
   await updateUser(ctx.db, id, req);
+  // Refused on every request anyway while inactive; ending the sessions and tokens means reactivating
+  // does not revive them.
+  if (req.active === false) {
+    await endAllSessions(ctx, id);
+    await deleteUserTokens(ctx.db, id);
+  }
   return publicUser({ ...user, ...req });
+}
+
+/** An admin signs a user out everywhere, e.g. after a lost laptop. */
+export async function signOutEverywhere(ctx: AppContext, id: number): Promise<void> {
+  if (!(await findUserById(ctx.db, id))) throw notFound('User');
+  await endAllSessions(ctx, id);
 }
 
 /** Makes sure the bootstrap admin named by ADMIN_EMAIL/ADMIN_PASSWORD exists and can sign in. */

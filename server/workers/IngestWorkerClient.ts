@@ -1,6 +1,7 @@
 import { ENGINE_VERSION } from '../../shared/analysis';
 import { Worker } from 'node:worker_threads';
-import type { AnalyseRequest, IngestedChannel, IngestRequest, IngestResult, ParsedFile } from './ingestTask';
+import type { ValidSpanResult } from '../../shared/analysis';
+import type { AnalyseRequest, IngestedChannel, IngestRequest, IngestResult, ParsedFile, SpanFiguresRequest } from './ingestTask';
 import type { IngestReply, IngestTask } from './ingestWorker';
 
 /** A capture the worker could not read or analyse: a user-facing message, with the file line when known. */
@@ -112,12 +113,17 @@ export class IngestWorkerClient {
     const parsed = await this.run<ParsedFile>({ kind: 'parse', request }, budgetMs);
     const channels = await Promise.all(
       parsed.channels.map((channel) => {
-        const analyse: AnalyseRequest = { channel, sampleRate: parsed.sampleRate, t0: parsed.t0 };
+        const analyse: AnalyseRequest = { channel, sampleRate: parsed.sampleRate, t0: parsed.t0, declared: request.declared ?? null };
         return this.run<IngestedChannel>({ kind: 'analyse', request: analyse }, budgetMs, [channel.samples.buffer as ArrayBuffer]);
       }),
     );
-    const { sampleRate, sampleCount, t0, detected, metadata } = parsed;
-    return { sampleRate, sampleCount, t0, detected, metadata, engineVersion: ENGINE_VERSION, channels };
+    const { sampleRate, sampleCount, t0, detected, metadata, systems } = parsed;
+    return { sampleRate, sampleCount, t0, detected, metadata, engineVersion: ENGINE_VERSION, channels, systems };
+  }
+
+  /** The engine's figures over spans of stored samples, off the event loop, within `budgetMs`. */
+  spanFigures(request: SpanFiguresRequest, budgetMs: number): Promise<ValidSpanResult[]> {
+    return this.run<ValidSpanResult[]>({ kind: 'figures', request }, budgetMs, request.channels.map((c) => c.buffer as ArrayBuffer));
   }
 
   /** Terminates every worker; their unfinished tasks are rejected. The next task starts fresh ones. */

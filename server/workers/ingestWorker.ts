@@ -1,8 +1,8 @@
 import { parentPort } from 'node:worker_threads';
 import { CsvError } from '../../shared/csv';
-import { analyseChannel, parseFile, type AnalyseRequest, type IngestRequest } from './ingestTask';
+import { analyseChannel, parseFile, spanFigures, type AnalyseRequest, type IngestRequest, type SpanFiguresRequest } from './ingestTask';
 
-export type IngestTask = { kind: 'parse'; request: IngestRequest } | { kind: 'analyse'; request: AnalyseRequest };
+export type IngestTask = { kind: 'parse'; request: IngestRequest } | { kind: 'analyse'; request: AnalyseRequest } | { kind: 'figures'; request: SpanFiguresRequest };
 
 export type IngestReply = { id: number; ok: true; result: unknown } | { id: number; ok: false; error: { code: string; message: string; line?: number } };
 
@@ -14,6 +14,9 @@ parentPort!.on('message', ({ id, task }: { id: number; task: IngestTask }) => {
       const parsed = parseFile(task.request);
       result = parsed;
       transfer = parsed.channels.map((c) => c.samples.buffer);
+    } else if (task.kind === 'figures') {
+      result = spanFigures(task.request);
+      transfer = [];
     } else {
       const channel = analyseChannel(task.request);
       result = channel;

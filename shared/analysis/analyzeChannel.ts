@@ -1,5 +1,5 @@
 import type { ChannelAnalysis } from '../schemas/analysis';
-import { findClipping } from './clipping';
+import { findClipping, type ClippingFinding } from './clipping';
 import { estimateFrequency } from './frequency';
 import { harmonics } from './harmonics';
 import { iecHarmonicGroups, mainsSystemOf } from './iec61000_4_7';
@@ -16,6 +16,11 @@ export interface AnalysisSettings {
   iec?: 50 | 60 | 'auto' | 'off';
   /** Time of the first sample, in seconds (pre-trigger records start negative). */
   t0?: number;
+  /**
+   * The record's clipping, when the caller has already looked for it (findClipping over all of `x`
+   * with its extremes): the ingest shares one search between these warnings and the anomaly finder.
+   */
+  clipping?: ClippingFinding[];
 }
 
 /**
@@ -42,7 +47,7 @@ export function analyzeChannel(x: Samples, sampleRate: number, settings: Analysi
   const iec = mains !== null && freq.hz !== null ? iecHarmonicGroups(x, sampleRate, freq.hz, mains, maxOrder) : null;
 
   const meters = meterReadings(f);
-  const clipping = findClipping(x, 0, x.length, whole.min, whole.max);
+  const clipping = settings.clipping ?? findClipping(x, 0, x.length, whole.min, whole.max);
   return {
     window: {
       startS: t0 + win.startIndex / sampleRate,

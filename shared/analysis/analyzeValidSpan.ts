@@ -1,9 +1,7 @@
 import type { ChannelAnalysis } from '../schemas/analysis';
 import { analyzeChannel, type AnalysisSettings } from './analyzeChannel';
+import { longestValidStretch, validStretchProblem } from './longestValidStretch';
 import type { Samples } from './samples';
-
-/** Share of the record the longest valid stretch must cover for its figures to stand for the record. */
-const MIN_VALID_SHARE = 0.5;
 
 export type ValidSpanResult = { ok: true; analysis: ChannelAnalysis } | { ok: false; reason: string };
 
@@ -13,29 +11,13 @@ export type ValidSpanResult = { ok: true; analysis: ChannelAnalysis } | { ok: fa
  * come from the longest unbroken valid stretch, when it covers at least half of the record.
  */
 export function analyzeValidSpan(x: Samples, sampleRate: number, settings: AnalysisSettings = {}): ValidSpanResult {
-  let invalid = 0;
-  let bestStart = 0;
-  let bestLength = 0;
-  let runStart = 0;
-  for (let i = 0; i <= x.length; i++) {
-    if (i === x.length || Number.isNaN(x[i])) {
-      if (i < x.length) invalid++;
-      if (i - runStart > bestLength) {
-        bestStart = runStart;
-        bestLength = i - runStart;
-      }
-      runStart = i + 1;
-    }
-  }
+  const { start: bestStart, length: bestLength, invalid } = longestValidStretch(x);
   if (invalid === 0) return { ok: true, analysis: analyzeChannel(x, sampleRate, settings) };
-  if (bestLength < 2 || bestLength < MIN_VALID_SHARE * x.length) {
-    return {
-      ok: false,
-      reason: `${invalid} of ${x.length} samples are empty or overrange, and the longest valid stretch (${bestLength} samples) is less than half the record; re-capture with a larger range.`,
-    };
-  }
+  const problem = validStretchProblem({ start: bestStart, length: bestLength, invalid }, x.length);
+  if (problem) return { ok: false, reason: problem };
   const t0 = (settings.t0 ?? 0) + bestStart / sampleRate;
-  const analysis = analyzeChannel(x.subarray(bestStart, bestStart + bestLength), sampleRate, { ...settings, t0 });
+  // The record's clipping search covered the whole record, not this stretch: it is done again here.
+  const analysis = analyzeChannel(x.subarray(bestStart, bestStart + bestLength), sampleRate, { ...settings, t0, clipping: undefined });
   analysis.window.startIndex += bestStart;
   analysis.warnings.unshift({
     code: 'invalidSamples',

@@ -1,2 +1,2 @@
-/** Bumped whenever a change to the engine can change a stored figure; old captures can then be re-analysed. */
-export const ENGINE_VERSION = 1;
+/** Bumped whenever a change to the engine can change a stored figure; old captures can then be re-analysed. 2: three-phase systems and voltage events. */
+export const ENGINE_VERSION = 2;

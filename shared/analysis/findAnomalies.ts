@@ -1,9 +1,9 @@
-import { findClipping } from './clipping';
+import { findClipping, type ClippingFinding } from './clipping';
 import { risingZeroCrossings } from './frequency';
 import type { Samples } from './samples';
 
 export interface AnomalySuggestion {
-  kind: 'clipping' | 'spike' | 'dropout' | 'sag' | 'swell' | 'frequency';
+  kind: 'clipping' | 'spike' | 'dropout' | 'sag' | 'swell' | 'frequency' | 'dip' | 'interruption';
   startS: number;
   endS: number;
   severity: 'info' | 'warning' | 'fault';
@@ -21,6 +21,8 @@ export interface AnomalyOptions {
   spikeFactor?: number;
   /** A cycle whose period differs by more than this from the record's is a frequency deviation. */
   frequencyPercent?: number;
+  /** The record's clipping when already found (findClipping over all of x with its extremes). */
+  clipping?: ClippingFinding[];
 }
 
 const MAX_PER_KIND = 20;
@@ -71,7 +73,7 @@ export function findAnomalies(x: Samples, sampleRate: number, t0: number, freque
   const span = max - min;
 
   // Clipping: runs of three or more samples on a rail that findClipping judged to be clipped.
-  for (const c of findClipping(x, 0, x.length, min, max)) {
+  for (const c of options.clipping ?? findClipping(x, 0, x.length, min, max)) {
     for (const [a, b] of runs(x.length, (i) => x[i] === c.value).filter(([a, b]) => b - a >= 2).slice(0, MAX_PER_KIND)) {
       out.push({ kind: 'clipping', startS: t(a), endS: t(b + 1), severity: 'fault', label: 'Clipping', reason: `${b - a + 1} samples flat at the record's ${c.rail === 'max' ? 'maximum' : 'minimum'} (${c.value.toPrecision(4)}): the instrument's range was exceeded.` });
     }

@@ -1,19 +1,29 @@
-/** A Float64 column that grows by doubling; `values()` is a view, not a copy. */
+/**
+ * A Float64 column that grows by doubling, but never beyond `maxLength` values, so that a capped reader
+ * never holds more than its budget; `values()` is a view, not a copy.
+ */
 export class GrowableColumn {
   private data: Float64Array;
   length = 0;
 
-  constructor(initialCapacity = 1024) {
-    this.data = new Float64Array(Math.max(16, initialCapacity));
+  constructor(
+    initialCapacity = 1024,
+    private readonly maxLength = Infinity,
+  ) {
+    this.data = new Float64Array(Math.min(Math.max(16, initialCapacity), maxLength));
   }
 
+  /** Appends a value; pushing beyond `maxLength` is a programming error and throws a RangeError. */
   push(v: number): void {
-    if (this.length === this.data.length) {
-      const bigger = new Float64Array(this.data.length * 2);
-      bigger.set(this.data);
-      this.data = bigger;
-    }
+    if (this.length === this.data.length) this.grow();
     this.data[this.length++] = v;
+  }
+
+  private grow(): void {
+    if (this.length >= this.maxLength) throw new RangeError(`A column holds at most ${this.maxLength} values.`);
+    const bigger = new Float64Array(Math.min(Math.max(16, this.data.length * 2), this.maxLength));
+    bigger.set(this.data);
+    this.data = bigger;
   }
 
   last(): number {

@@ -1,8 +1,11 @@
 import { looksLikeIndexName, looksLikeTimeName, looksLikeUnit, normaliseUnit, parseColumnHeader, timeUnitScale, type ColumnHeader } from './columnHeader';
 import { CsvError } from './CsvError';
+import { headTooLong, nameTooLong, tooManyChannels } from './limitErrors';
 import { cellValue, cleanCell } from './numberCells';
 import { intervalFromPreamble, parsePreambleLine, unitFromPreamble, type PreambleEntry } from './preamble';
+import { resolveReadLimits, type ReadLimits } from './readLimits';
 import { splitLine, type Delimiter } from './splitLine';
+import { leadingMark, unwrap } from './textScan';
 
 /** How a capture file is laid out, found from its first lines. */
 export interface CaptureLayout {
@@ -99,7 +102,7 @@ function headerCells(line: string, delimiter: Delimiter, trailing: boolean): str
   if (delimiter === 'whitespace') {
     // "CH1 (V)" is one title even when spaces separate the columns.
     cells = cells.reduce<string[]>((out, c) => {
-      if (/^[([{]/.test(c) && out.length > 0) out[out.length - 1] += ` ${c}`;
+      if (c !== '' && '([{'.includes(c[0]) && out.length > 0) out[out.length - 1] += ` ${c}`;
       else out.push(c);
       return out;
     }, []);
@@ -126,16 +129,38 @@ function risesSteadily(lines: string[], start: number, run: Run, column: number)
   return { steady, integers: values.every((v) => Number.isInteger(v)) && step === 1 };
 }
 
+const COMMENT_MARKS = ['#', '%', '//'];
+
+/** Refuses a title or preamble entry over the name limit, naming it and its line. */
+function checkName(what: string, text: string, line: number, maxNameChars: number): void {
+  if (text.length > maxNameChars) throw nameTooLong(what, line, text.length, maxNameChars);
+}
+
+/** What sniffLayout is told besides the lines. */
+export interface SniffOptions {
+  /** Limits on columns and on the length of names; the defaults where not given. */
+  limits?: Partial<ReadLimits>;
+  /**
+   * The file line that the head limit cut off: `lines` stop before it although the file goes on. When no
+   * data is found in them, the error names the head limit rather than the lines.
+   */
+  cutBeforeLine?: number | null;
+}
+
 /**
  * Finds delimiter, decimal mark, preamble, header (with units in the titles or on a row of their own),
- * time column and data start from the first lines of a file.
+ * time column and data start from the first lines of a file. Linear in the length of the lines; refuses
+ * with a `too_large` CsvError more channels than `limits.maxChannels`, or a title or preamble key or value
+ * longer than `limits.maxNameChars` characters.
  *
  * @param lines the head of the file split into lines (the last one complete)
  * @param firstLine the file line number of lines[0]
  */
-export function sniffLayout(lines: string[], firstLine = 1): CaptureLayout {
+export function sniffLayout(lines: string[], firstLine = 1, options: SniffOptions = {}): CaptureLayout {
+  const limits = resolveReadLimits(options.limits);
   const runs = DIALECTS.map((d) => dataRun(lines, d)).filter((r): r is Run => r !== null);
   if (runs.length === 0) {
+    if (options.cutBeforeLine) throw headTooLong(options.cutBeforeLine, limits.maxHeadBytes);
     if (lines.every(isBlank)) throw new CsvError('The file holds no data, only blank lines.', undefined, 'empty');
     // Name the first line after a possible header: that is where numbers were expected.
     const nonBlank = lines.map((l, i) => (isBlank(l) ? -1 : i)).filter((i) => i >= 0);
@@ -148,7 +173,7 @@ export function sniffLayout(lines: string[], firstLine = 1): CaptureLayout {
   const above: number[] = [];
   for (let i = run.start - 1; i >= 0; i--) if (!isBlank(lines[i])) above.push(i);
   const textRow = (i: number | undefined) => {
-    if (i === undefined || /^\s*(#|%|\/\/)/.test(lines[i])) return null;
+    if (i === undefined || leadingMark(lines[i], COMMENT_MARKS)) return null;
     const cells = headerCells(lines[i], run.delimiter, run.trailing);
     return cells.length === run.fields && cells.some((c) => cellValue(c, run.decimal) === undefined) ? cells : null;
   };
@@ -162,18 +187,25 @@ export function sniffLayout(lines: string[], firstLine = 1): CaptureLayout {
   } else if (nearest) {
     headerIdx = above[0];
   }
+  // A time and a sample-number column may come on top of the channels; which they are is known below.
+  if (run.fields > limits.maxChannels + 2) throw tooManyChannels(run.fields, null, limits.maxChannels, firstLine + (headerIdx ?? run.start));
   const preambleEnd = headerIdx ?? run.start;
   const preamble: PreambleEntry[] = [];
   for (let i = 0; i < preambleEnd; i++) {
     const e = parsePreambleLine(lines[i], firstLine + i, run.delimiter);
-    if (e) preamble.push(e);
+    if (!e) continue;
+    checkName('Header key', e.key, e.line, limits.maxNameChars);
+    checkName('Header value', e.value, e.line, limits.maxNameChars);
+    preamble.push(e);
   }
 
   const names = headerIdx !== null ? headerCells(lines[headerIdx], run.delimiter, run.trailing) : null;
   const units = unitsIdx !== null ? headerCells(lines[unitsIdx], run.delimiter, run.trailing) : null;
+  // A units row is one only when every cell looks like a unit, so its cells are short by construction.
+  for (const name of names ?? []) checkName('Column title', name, firstLine + (headerIdx as number), limits.maxNameChars);
   const columns: ColumnHeader[] = Array.from({ length: run.fields }, (_, i) => {
     const parsed = names ? parseColumnHeader(names[i]) : { name: '', unit: '' };
-    const unit = units?.[i] ? normaliseUnit(units[i].replace(/^[([](.*)[)\]]$/, '$1')) : parsed.unit;
+    const unit = units?.[i] ? normaliseUnit(unwrap(units[i], '([', ')]')) : parsed.unit;
     return { name: parsed.name, unit };
   });
 
@@ -186,6 +218,8 @@ export function sniffLayout(lines: string[], firstLine = 1): CaptureLayout {
     if (first.integers) indexColumn = 0;
     else if (first.steady) timeColumn = 0;
   }
+  const channels = run.fields - (timeColumn !== null ? 1 : 0) - (indexColumn !== null ? 1 : 0);
+  if (channels > limits.maxChannels) throw tooManyChannels(run.fields, channels, limits.maxChannels, firstLine + (headerIdx ?? run.start));
   const timeScale = timeColumn !== null ? (timeUnitScale(columns[timeColumn].unit || 's') ?? 1) : 1;
 
   const fallbackUnit = unitFromPreamble(preamble);

@@ -1,5 +1,8 @@
 import { z } from 'zod';
 import { ChannelAnalysis } from './analysis';
+import { ChannelSetup, UploadChannelSetupField } from './channelSetup';
+import { ChannelVoltageEvents } from './powerQuality';
+import { SystemSpec, ThreePhaseSystem } from './threePhase';
 
 export const CaptureStatus = z.enum(['queued', 'processing', 'ready', 'failed']);
 export type CaptureStatus = z.infer<typeof CaptureStatus>;
@@ -62,6 +65,13 @@ export const CaptureDetail = CaptureSummary.extend({
   metadata: z.array(z.object({ key: z.string(), value: z.string(), line: z.number().int() })),
   engineVersion: z.number().int().nullable(),
   readyAt: z.string().nullable(),
+  /** How channels are turned into engineering units (the file itself is never changed). */
+  channelSetup: z.array(ChannelSetup),
+  /** Three-phase sets as a user stated them, or null when they are found automatically. */
+  systemsSpec: z.array(SystemSpec).nullable(),
+  declaredVoltage: z.number().nullable(),
+  /** A re-analysis is queued or running; the figures shown are the last good ones until it is done. */
+  reanalysing: z.boolean(),
 });
 export type CaptureDetail = z.infer<typeof CaptureDetail>;
 
@@ -85,6 +95,8 @@ export const UploadFields = z.object({
   name: z.string().trim().max(200).optional(),
   projectId: z.coerce.number().int().positive().optional(),
   sampleRate: z.coerce.number().positive().optional(),
+  /** JSON: channel setups to apply from the first analysis on (UploadChannelSetup). */
+  channelSetup: UploadChannelSetupField.optional(),
 });
 
 export const UploadResponse = z.object({ id: z.number().int(), status: CaptureStatus, duplicate: z.boolean() });
@@ -97,7 +109,14 @@ export type UpdateCaptureRequest = z.infer<typeof UpdateCaptureRequest>;
 
 export const SampleRateRequest = z.object({ sampleRate: z.number().positive().max(1e12) });
 
-export const AnalysisResponse = z.object({ engineVersion: z.number().int(), channels: z.array(ChannelAnalysis) });
+export const AnalysisResponse = z.object({
+  engineVersion: z.number().int(),
+  channels: z.array(ChannelAnalysis),
+  /** Three-phase sets and their figures. */
+  systems: z.array(ThreePhaseSystem),
+  /** Dips, swells and interruptions of each voltage channel against its declared voltage. */
+  voltageEvents: z.array(ChannelVoltageEvents),
+});
 export type AnalysisResponse = z.infer<typeof AnalysisResponse>;
 
 export const SamplesQuery = z.object({

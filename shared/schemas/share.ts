@@ -3,6 +3,13 @@ import { Annotation } from './annotation';
 import { AnalysisResponse, CaptureDetail } from './capture';
 import { Comparison } from './comparison';
 
+/**
+ * The most points one request of a share link answers. A `points` above it is lowered to it, and a span
+ * holding more samples comes back as min/max buckets, so an anonymous reader cannot make the server
+ * read and send millions of samples per request.
+ */
+export const SHARED_MAX_POINTS = 20_000;
+
 export const CreateShareRequest = z.object({
   expiresInDays: z.number().int().min(1).max(365).optional(),
   email: z.string().trim().toLowerCase().email().max(254).optional(),

@@ -1,6 +1,7 @@
-import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, SamplesQuery, SamplesResponse, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
-import { api, ApiError, toError } from './http';
+import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, SamplesQuery, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
+import { api, ApiError, clientHeaders, toError } from './http';
 import { queryString as query } from './queryString';
+import { fetchSamples } from './samples';
 
 export const listCaptures = (q: Partial<CaptureListQuery>) => api<CaptureList>('GET', `/captures?${query(q)}`);
 export const getCapture = (id: number) => api<CaptureDetail>('GET', `/captures/${id}`);
@@ -8,14 +9,15 @@ export const getAnalysis = (id: number) => api<AnalysisResponse>('GET', `/captur
 export const deleteCapture = (id: number) => api<void>('DELETE', `/captures/${id}`);
 export const updateCapture = (id: number, req: UpdateCaptureRequest) => api<CaptureDetail>('PATCH', `/captures/${id}`, req);
 export const giveSampleRate = (id: number, sampleRate: number) => api<CaptureDetail>('POST', `/captures/${id}/sample-rate`, { sampleRate });
-export const getSamples = (id: number, q: SamplesQuery) => api<SamplesResponse>('GET', `/captures/${id}/samples?${query(q)}`);
+export const getSamples = (id: number, q: SamplesQuery) => fetchSamples(`/captures/${id}/samples?${query(q)}`);
 export const originalUrl = (id: number) => `/api/captures/${id}/original`;
 
 /** Uploads one file with progress (fetch cannot report upload progress, XMLHttpRequest can). */
-export function uploadCapture(file: File, fields: { projectId?: number; name?: string }, onProgress: (fraction: number) => void): Promise<UploadResponse> {
+export function uploadCapture(file: File, fields: { projectId?: number; name?: string; channelSetup?: string }, onProgress: (fraction: number) => void): Promise<UploadResponse> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', '/api/captures');
+    for (const [name, value] of Object.entries(clientHeaders)) xhr.setRequestHeader(name, value);
     xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded / e.total);
     xhr.onerror = () => reject(new ApiError(0, 'network', 'The upload did not reach the server'));
     xhr.onload = async () => {
@@ -26,6 +28,7 @@ export function uploadCapture(file: File, fields: { projectId?: number; name?: s
     const form = new FormData();
     if (fields.projectId) form.append('projectId', String(fields.projectId));
     if (fields.name) form.append('name', fields.name);
+    if (fields.channelSetup) form.append('channelSetup', fields.channelSetup);
     form.append('file', file);
     xhr.send(form);
   });

@@ -1,7 +1,8 @@
-import type { SamplesQuery, SamplesResponse } from '../../shared/schemas/capture';
+import type { SamplesQuery } from '../../shared/schemas/capture';
 import type { CreateShareRequest, ShareCreated, ShareInfo, SharedView } from '../../shared/schemas/share';
 import { api } from './http';
 import { queryString } from './queryString';
+import { fetchSamples } from './samples';
 
 type Target = { kind: 'captures' | 'comparisons'; id: number };
 export const createShare = (t: Target, req: CreateShareRequest) => api<ShareCreated>('POST', `/${t.kind}/${t.id}/shares`, req);
@@ -9,4 +10,4 @@ export const listShares = (t: Target) => api<{ items: ShareInfo[] }>('GET', `/${
 export const revokeShare = (id: number) => api<void>('DELETE', `/shares/${id}`);
 export const openShared = (token: string) => api<SharedView>('GET', `/shared/${encodeURIComponent(token)}`);
 export const sharedSamples = (token: string, captureId: number, q: SamplesQuery) =>
-  api<SamplesResponse>('GET', `/shared/${encodeURIComponent(token)}/captures/${captureId}/samples?${queryString(q)}`);
+  fetchSamples(`/shared/${encodeURIComponent(token)}/captures/${captureId}/samples?${queryString(q)}`);

@@ -1,5 +1,4 @@
-/** Crestline's channel colours, in channel order. */
-export const CHANNEL_COLOURS = ['#2b8a82', '#d08a1c', '#8e5ba8', '#4f6fb3', '#b3474f', '#5f8f3a'];
+export { CHANNEL_COLOURS } from '../../shared/reports/palette';
 
 /** Axis and grid colours read from the current theme, so charts follow light and dark mode. */
 export function chartColours() {

@@ -27,7 +27,11 @@ export type SamplesSource = (captureId: number, q: SamplesQuery) => Promise<Samp
  * empty or overrange samples is analysed over its longest valid stretch, never spliced across the gap, or
  * not at all (with the engine's reason). The work runs in a Web Worker.
  */
-export function useSpanFigures(fetchSamples: SamplesSource = getSamples) {
+export function useSpanFigures(
+  fetchSamples: SamplesSource = getSamples,
+  /** Largest span this fetcher answers sample by sample (a share link answers fewer than a session). */
+  maxSamples = MAX_SPAN_SAMPLES,
+) {
   const span = shallowRef<SpanFigures | null>(null);
   const busy = ref(false);
   const error = ref('');
@@ -42,13 +46,13 @@ export function useSpanFigures(fetchSamples: SamplesSource = getSamples) {
       span.value = null;
       return;
     }
-    if (count > MAX_SPAN_SAMPLES) {
-      error.value = `The span holds ${count.toLocaleString('en')} samples; select at most ${MAX_SPAN_SAMPLES.toLocaleString('en')} for figures in the browser.`;
+    if (count > maxSamples) {
+      error.value = `The span holds ${count.toLocaleString('en')} samples; select at most ${maxSamples.toLocaleString('en')} for figures in the browser.`;
       return;
     }
     busy.value = true;
     try {
-      const answers = await Promise.all(capture.channels.map((ch) => fetchSamples(capture.id, { channel: ch.index, fromS, toS, points: MAX_SPAN_SAMPLES })));
+      const answers = await Promise.all(capture.channels.map((ch) => fetchSamples(capture.id, { channel: ch.index, fromS, toS, points: maxSamples })));
       const channels = await analyzeOffMainThread({ kind: 'span', channels: answers.map((s) => rawSamples(s)), sampleRate: rate, t0S: answers[0]?.t0S ?? fromS });
       if (ask !== latest) return;
       span.value = { fromS, toS, sampleCount: count, channels, ...cyclesOf(channels, count / rate) };

@@ -2,7 +2,7 @@ import { createRouter, createWebHistory, type RouteLocationRaw, type RouteRecord
 import type { Role } from '../../shared/schemas/user';
 import { useSessionStore } from '../stores/session';
 
-export type AppRouteName = 'sign-in' | 'projects' | 'project' | 'capture' | 'compare' | 'comparison' | 'admin-users' | 'admin-mail' | 'account' | 'shared' | 'reset-password' | 'set-password' | 'help' | 'not-found';
+export type AppRouteName = 'sign-in' | 'projects' | 'project' | 'capture' | 'compare' | 'comparison' | 'admin-users' | 'admin-mail' | 'account' | 'shared' | 'reset-password' | 'set-password' | 'help' | 'help-automation' | 'not-found';
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -29,6 +29,7 @@ export const routes: (RouteRecordRaw & { name: AppRouteName })[] = [
   { path: '/admin/mail', name: 'admin-mail', component: () => import('../views/AdminMailView.vue'), meta: { roles: ['admin'] } },
   { path: '/account', name: 'account', component: () => import('../views/AccountView.vue') },
   { path: '/help', name: 'help', component: () => import('../views/HelpView.vue'), meta: { public: true } },
+  { path: '/help/automate-uploads', name: 'help-automation', component: () => import('../views/AutomateUploadsView.vue'), meta: { public: true } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('../views/NotFoundView.vue'), meta: { public: true } },
 ];
 

@@ -37,5 +37,8 @@ export const useSessionStore = defineStore('session', () => {
 
   const can = (...roles: Role[]) => computed(() => !!user.value && roles.includes(user.value.role));
 
-  return { user, checked, ensureLoaded, signIn, signOut, expire, can };
+  /** Whether the user may change something owned by `ownerId` (a project's creator, a mark's owner): the owner or an admin. */
+  const owns = (ownerId: number | null | undefined) => !!user.value && (user.value.role === 'admin' || (ownerId != null && ownerId === user.value.id));
+
+  return { user, checked, ensureLoaded, signIn, signOut, expire, can, owns };
 });

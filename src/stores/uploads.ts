@@ -44,12 +44,13 @@ export const useUploadsStore = defineStore('uploads', () => {
     listeners.forEach((fn) => fn(item));
   }
 
-  async function add(files: File[], projectId: number) {
+  /** `channelSetup`: JSON of setups applied from the first analysis on (a probe preset chosen at upload). */
+  async function add(files: File[], projectId: number, channelSetup?: string) {
     for (const file of files) {
       const item = ref<UploadItem>({ key: nextKey++, fileName: file.name, projectId, progress: 0, captureId: null, status: 'uploading', duplicate: false, message: '' }).value;
       items.value.unshift(item);
       const tracked = items.value[0];
-      uploadCapture(file, { projectId }, (f) => (tracked.progress = f))
+      uploadCapture(file, { projectId, channelSetup }, (f) => (tracked.progress = f))
         .then((r) => {
           tracked.progress = 1;
           tracked.captureId = r.id;

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { oneTimeTokens } from '../../server/db/schema';
 import type { RunningServer } from '../../server/server';
 import { lastMailTo, linkIn } from '../helpers/mailbox';
-import { ADMIN, resetDatabase, signedIn, startTestServer } from '../helpers/testServer';
+import { ADMIN, AS_CLIENT, resetDatabase, signedIn, startTestServer } from '../helpers/testServer';
 import { sql } from 'drizzle-orm';
 
 let app: RunningServer;
@@ -24,9 +24,9 @@ describe('invitations', () => {
     const mail = await lastMailTo(app, 'new@team.example');
     expect(mail.subject).toBe('You are invited to Crestline');
     const token = tokenOf(linkIn(mail.text, '/set-password'));
-    expect((await anon().post('/api/auth/login').send({ email: 'new@team.example', password: 'anything-at-all' })).status).toBe(401);
+    expect((await anon().post('/api/auth/login').set(AS_CLIENT).send({ email: 'new@team.example', password: 'anything-at-all' })).status).toBe(401);
     expect((await anon().post('/api/auth/set-password').send({ token, password: 'my-first-password' })).status).toBe(204);
-    expect((await anon().post('/api/auth/login').send({ email: 'new@team.example', password: 'my-first-password' })).status).toBe(200);
+    expect((await anon().post('/api/auth/login').set(AS_CLIENT).send({ email: 'new@team.example', password: 'my-first-password' })).status).toBe(200);
     const again = await anon().post('/api/auth/set-password').send({ token, password: 'another-password' });
     expect(again.status).toBe(400);
     expect(again.body.error.code).toBe('link_invalid');
@@ -51,7 +51,7 @@ describe('password reset', () => {
     expect(mail.subject).toBe('Reset your Crestline password');
     const token = tokenOf(linkIn(mail.text, '/set-password'));
     expect((await anon().post('/api/auth/set-password').send({ token, password: 'second-password-2' })).status).toBe(204);
-    expect((await anon().post('/api/auth/login').send({ email: 'new@team.example', password: 'second-password-2' })).status).toBe(200);
+    expect((await anon().post('/api/auth/login').set(AS_CLIENT).send({ email: 'new@team.example', password: 'second-password-2' })).status).toBe(200);
     expect((await anon().post('/api/auth/set-password').send({ token, password: 'third-password-3' })).status).toBe(400);
 
     await anon().post('/api/auth/reset-request').send({ email: ADMIN.email });

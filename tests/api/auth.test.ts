@@ -1,7 +1,7 @@
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RunningServer } from '../../server/server';
-import { ADMIN, resetDatabase, signedIn, startTestServer } from '../helpers/testServer';
+import { ADMIN, AS_CLIENT, resetDatabase, signedIn, startTestServer } from '../helpers/testServer';
 
 let app: RunningServer;
 beforeAll(async () => {
@@ -12,7 +12,7 @@ afterAll(() => app.stop());
 
 describe('POST /api/auth/login', () => {
   it('with good credentials: 200 with the user and an httpOnly, SameSite=Lax session cookie', async () => {
-    const res = await supertest(app.server).post('/api/auth/login').send({ email: ADMIN.email, password: ADMIN.password });
+    const res = await supertest(app.server).post('/api/auth/login').set(AS_CLIENT).send({ email: ADMIN.email, password: ADMIN.password });
     expect(res.status).toBe(200);
     expect(res.body.user).toMatchObject({ email: ADMIN.email, role: 'admin' });
     expect(res.body.user.passwordHash).toBeUndefined();
@@ -33,6 +33,7 @@ describe('POST /api/auth/login', () => {
       express(req as never, r as never);
     })
       .post('/api/auth/login')
+      .set(AS_CLIENT)
       .send({ email: ADMIN.email, password: ADMIN.password });
     app.server.on('request', express);
     expect(res.status).toBe(200);
@@ -42,7 +43,7 @@ describe('POST /api/auth/login', () => {
   it('behind a trusted TLS proxy (TRUST_PROXY), the cookie is Secure too', async () => {
     const proxied = await startTestServer({ TRUST_PROXY: '1' });
     try {
-      const res = await supertest(proxied.server).post('/api/auth/login').set('X-Forwarded-Proto', 'https').send({ email: ADMIN.email, password: ADMIN.password });
+      const res = await supertest(proxied.server).post('/api/auth/login').set(AS_CLIENT).set('X-Forwarded-Proto', 'https').send({ email: ADMIN.email, password: ADMIN.password });
       expect(res.status).toBe(200);
       expect(res.headers['set-cookie'][0]).toMatch(/Secure/);
     } finally {
@@ -51,8 +52,8 @@ describe('POST /api/auth/login', () => {
   });
 
   it('with a wrong password or an unknown e-mail: the same 401, which does not tell them apart', async () => {
-    const wrong = await supertest(app.server).post('/api/auth/login').send({ email: ADMIN.email, password: 'not-the-password' });
-    const unknown = await supertest(app.server).post('/api/auth/login').send({ email: 'nobody@test.example', password: 'not-the-password' });
+    const wrong = await supertest(app.server).post('/api/auth/login').set(AS_CLIENT).send({ email: ADMIN.email, password: 'not-the-password' });
+    const unknown = await supertest(app.server).post('/api/auth/login').set(AS_CLIENT).send({ email: 'nobody@test.example', password: 'not-the-password' });
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(unknown.body).toEqual(wrong.body);
@@ -60,7 +61,7 @@ describe('POST /api/auth/login', () => {
   });
 
   it('with a malformed body: 400 in the one error shape', async () => {
-    const res = await supertest(app.server).post('/api/auth/login').send({ email: 'not-an-email' });
+    const res = await supertest(app.server).post('/api/auth/login').set(AS_CLIENT).send({ email: 'not-an-email' });
     expect(res.status).toBe(400);
     expect(res.body.error).toMatchObject({ code: 'invalid_request' });
     expect(typeof res.body.error.message).toBe('string');
@@ -99,7 +100,7 @@ describe('sessions', () => {
     expect((await leaver.get('/api/projects')).status).toBe(200);
     expect((await admin.patch(`/api/users/${created.body.user.id}`).send({ active: false })).status).toBe(200);
     expect((await leaver.get('/api/projects')).status).toBe(401);
-    const again = await supertest(app.server).post('/api/auth/login').send({ email: 'leaver@test.example', password: 'leaver-password-1' });
+    const again = await supertest(app.server).post('/api/auth/login').set(AS_CLIENT).send({ email: 'leaver@test.example', password: 'leaver-password-1' });
     expect(again.status).toBe(401);
   });
 
@@ -109,8 +110,8 @@ describe('sessions', () => {
     const mover = await signedIn(app, 'mover@test.example', 'first-password-1');
     expect((await mover.post('/api/auth/password').send({ currentPassword: 'wrong', newPassword: 'second-password-2' })).status).toBe(400);
     expect((await mover.post('/api/auth/password').send({ currentPassword: 'first-password-1', newPassword: 'second-password-2' })).status).toBe(204);
-    expect((await supertest(app.server).post('/api/auth/login').send({ email: 'mover@test.example', password: 'first-password-1' })).status).toBe(401);
-    expect((await supertest(app.server).post('/api/auth/login').send({ email: 'mover@test.example', password: 'second-password-2' })).status).toBe(200);
+    expect((await supertest(app.server).post('/api/auth/login').set(AS_CLIENT).send({ email: 'mover@test.example', password: 'first-password-1' })).status).toBe(401);
+    expect((await supertest(app.server).post('/api/auth/login').set(AS_CLIENT).send({ email: 'mover@test.example', password: 'second-password-2' })).status).toBe(200);
   });
 
   it('security headers: a Content-Security-Policy and no X-Powered-By', async () => {

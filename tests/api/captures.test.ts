@@ -88,7 +88,7 @@ describe('uploading a capture', () => {
     const empty = (await eng.post('/api/projects').send({ name: 'Demo playground' })).body.project.id;
     const first = await eng.post(`/api/projects/${empty}/demo-captures`);
     expect(first.status).toBe(202);
-    expect(first.body.added).toBe(8);
+    expect(first.body.added).toBe(9);
     expect((await eng.post(`/api/projects/${empty}/demo-captures`)).body.added).toBe(0);
     expect((await viewer.post(`/api/projects/${empty}/demo-captures`)).status).toBe(403);
     const list = (await eng.get(`/api/captures?projectId=${empty}&tag=inverter`)).body.items as { name: string }[];

@@ -1,4 +1,4 @@
-import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -9,6 +9,7 @@ import { channels, jobs } from '../../server/db/schema';
 import { CaptureProcessor } from '../../server/jobs/captureProcessor';
 import type { RunningServer } from '../../server/server';
 import { longTwoChannelCsv, sineCsv, uploadText, waitSettled, waitStatus } from '../helpers/captures';
+import { serverProcess as startServerProcess } from '../helpers/serverProcess';
 import { ADMIN, resetDatabase, signedIn, startTestServer, testDatabaseUrl } from '../helpers/testServer';
 
 /**
@@ -39,43 +40,11 @@ async function channelCount(captureId: number) {
   return (await app.ctx.db.select().from(channels).where(eq(channels.captureId, captureId))).length;
 }
 
-/** `npm start`'s server process (without the scripts around it), on a free port; resolves with its URL. */
-function serverProcess(dataDir: string): Promise<{ child: ChildProcess; url: string }> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: {
-      ...process.env,
-      DATABASE_URL: testDatabaseUrl(),
-      PORT: '0',
-      HOST: '127.0.0.1',
-      DATA_DIR: dataDir,
-      NODE_ENV: 'test',
-      SERVE_CLIENT: '0',
-      RUN_WORKER: '1',
-      SEED_DEMO: '0',
-      BCRYPT_COST: '4',
-      SMTP_SINK_PORT: '0',
-      JOB_STALE_SECONDS: '1',
-      ADMIN_EMAIL: ADMIN.email,
-      ADMIN_PASSWORD: ADMIN.password,
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  cleanups.push(() => child.exitCode === null && child.kill('SIGKILL'));
-  return new Promise((resolve, reject) => {
-    let out = '';
-    const timer = setTimeout(() => reject(new Error(`the server did not start in 30 s:\n${out}`)), 30_000);
-    const read = (b: Buffer) => {
-      out += b.toString();
-      const m = /Crestline is ready: (http:\/\/127\.0\.0\.1:\d+)/.exec(out);
-      if (m) {
-        clearTimeout(timer);
-        resolve({ child, url: m[1] });
-      }
-    };
-    child.stdout!.on('data', read);
-    child.stderr!.on('data', read);
-    child.on('exit', (code) => reject(new Error(`the server exited (${code}) before it was ready:\n${out}`)));
-  });
+/** A server process of its own, killed at the end of the file whatever happens. */
+async function serverProcess(dataDir: string) {
+  const p = await startServerProcess(dataDir);
+  cleanups.push(() => p.child.exitCode === null && p.child.kill('SIGKILL'));
+  return p;
 }
 
 async function signedInAt(url: string) {
@@ -104,7 +73,7 @@ describe('fault: the server process is killed mid-ingest', () => {
     expect(await channelCount(id)).toBe(2);
     second.child.kill('SIGTERM');
     await new Promise((r) => second.child.once('exit', r));
-  });
+  }, 120_000);
 });
 
 describe('fault: a worker thread dies', () => {
@@ -121,7 +90,7 @@ describe('fault: a worker thread dies', () => {
     expect((await waitSettled(eng, id, 60_000)).status).toBe('ready');
     expect(await jobOf(id)).toMatchObject({ status: 'done', attempts: 2 });
     expect(await channelCount(id)).toBe(2);
-  });
+  }, 120_000);
 });
 
 describe('fault: the database stops during an upload', () => {
@@ -149,5 +118,5 @@ describe('fault: the database stops during an upload', () => {
     const capture = await waitSettled(agent, retried.body.id);
     expect(capture.status).toBe('ready');
     expect((await agent.get('/api/captures')).body.total).toBe(1);
-  });
+  }, 120_000);
 });

@@ -55,7 +55,10 @@ const big = () => Buffer.concat([bigRows, Buffer.from(`20.00000,${++variant},0\n
 
 describe('time budgets', () => {
   it('when a file runs past its time budget, its worker is stopped and the capture fails with "took longer than"', async () => {
-    const p = processor({ INGEST_TIME_FLOOR_SECONDS: 0.1, INGEST_SECONDS_PER_MB: 0 });
+    const config: Config = { ...app.ctx.config, INGEST_CONCURRENCY: 1, INGEST_TIME_FLOOR_SECONDS: 0.1, INGEST_SECONDS_PER_MB: 0 };
+    const p = new CaptureProcessor({ ...app.ctx, config });
+    running.push(p);
+    p.start();
     const id = (await uploadText(eng, 'slow.csv', big())).body.id;
     p.nudge();
     const c = await waitSettled(eng, id, 60_000);
@@ -65,12 +68,13 @@ describe('time budgets', () => {
     expect(await jobOf(id)).toMatchObject({ status: 'failed', attempts: 1 });
     expect(await channelCount(id)).toBe(0);
 
-    // The slot's next file gets a fresh worker and is processed as usual.
+    // The slot's next file, with an ordinary budget again, gets a fresh worker and is processed as usual.
+    config.INGEST_TIME_FLOOR_SECONDS = 60;
     const next = (await uploadText(eng, 'after.csv', sineCsv(10, 50, 5000, 0.2))).body.id;
     p.nudge();
     expect((await waitSettled(eng, next)).status).toBe('ready');
     await p.stop();
-  });
+  }, 120_000);
 
   it('while one large file is being read, a small upload is processed beside it', async () => {
     const p = processor({ INGEST_CONCURRENCY: 2 });
@@ -83,7 +87,7 @@ describe('time budgets', () => {
     expect((await eng.get(`/api/captures/${slow}`)).body.status).toBe('processing');
     expect((await waitSettled(eng, slow, 60_000)).status).toBe('ready');
     await p.stop();
-  });
+  }, 120_000);
 
   it('a stop interrupts a running file and gives its job back uncounted; the next start completes it once', async () => {
     const first = processor();
@@ -99,7 +103,7 @@ describe('time budgets', () => {
     expect(await jobOf(id)).toMatchObject({ status: 'done', attempts: 1, lockedBy: second.workerId });
     expect(await channelCount(id)).toBe(2);
     await second.stop();
-  });
+  }, 120_000);
 });
 
 describe('attempts and messages', () => {
@@ -141,6 +145,39 @@ describe('attempts and messages', () => {
     expect(c.status).toBe('failed');
     expect(c.error.message.length).toBeLessThanOrEqual(500);
     expect(await jobOf(id)).toMatchObject({ status: 'failed', attempts: 1 });
+    await p.stop();
+  });
+});
+
+/** Rows of a 50 Hz sine at 10 kS/s, time in the first column. */
+const sineRows = (n: number) => Array.from({ length: n }, (_, i) => `${(i / 10000).toFixed(4)},${Math.sin((2 * Math.PI * 50 * i) / 10000).toFixed(5)}\n`).join('');
+
+describe('hostile files', () => {
+  it('a header cell of a bracket and 8,000 spaces (minutes of backtracking once) ends at once, naming the limit and the line', async () => {
+    const p = processor({ INGEST_TIME_FLOOR_SECONDS: 10, INGEST_SECONDS_PER_MB: 0 });
+    const tooLong = (await uploadText(eng, 'brackets.csv', `Time (s),CH1 (${' '.repeat(8000)}x\n${sineRows(2000)}`)).body.id;
+    // Under the 1 kB title limit the same shape is read as usual: 900 spaces cost seconds of backtracking once.
+    const fits = (await uploadText(eng, 'brackets-short.csv', `Time (s),CH1 (${' '.repeat(900)}x\n${sineRows(2000)}`)).body.id;
+    p.nudge();
+    const c = await waitSettled(eng, tooLong, 20_000);
+    expect(c.status).toBe('failed');
+    expect(c.error).toMatchObject({ code: 'too_large', line: 1 });
+    expect(c.error.message).toMatch(/at most 1,024/);
+    expect((await waitSettled(eng, fits, 20_000)).status).toBe('ready');
+    await p.stop();
+  });
+
+  it('a file over the memory budget of rows × channels fails with the limit named, storing nothing', async () => {
+    // 16 MiB at 40 bytes a sample: 419,430 samples; this file has 300,000 rows of 2 channels.
+    const p = processor({ INGEST_MEMORY_MB: 16 });
+    const id = (await uploadText(eng, 'too-many.csv', longTwoChannelCsv(300_000))).body.id;
+    p.nudge();
+    const c = await waitSettled(eng, id);
+    expect(c.status).toBe('failed');
+    expect(c.error.code).toBe('too_large');
+    expect(c.error.message).toMatch(/more than 419,430 samples/);
+    expect(c.error.line).toBeGreaterThan(200_000);
+    expect(await channelCount(id)).toBe(0);
     await p.stop();
   });
 });

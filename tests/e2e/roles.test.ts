@@ -60,6 +60,10 @@ describe('signing in as each role', () => {
     await page.locator('[data-test=project-name]').fill('Lighting retrofit, block C');
     await page.locator('[data-test=project-save]').click();
     await page.locator('[data-test=projects-table]').getByText('Lighting retrofit, block C').waitFor();
+    // Rename and archive are offered on the engineer's own project only; the admin's stays as it is.
+    const row = (name: string) => page.locator('[data-test=projects-table] tr', { hasText: name });
+    expect(await row('Lighting retrofit, block C').locator('[data-test=project-rename]').count()).toBe(1);
+    expect(await row('Pump house survey').locator('[data-test=project-rename]').count()).toBe(0);
     await page.goto(`${app.url}/admin/users`);
     await page.waitForURL((u) => u.pathname === '/');
     await page.close();

@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { sql } from 'drizzle-orm';
 import supertest from 'supertest';
+import { CLIENT_HEADER, CLIENT_HEADER_VALUE } from '../../shared/clientHeader';
 import type { Config } from '../../server/config';
 import { startServer, type RunningServer } from '../../server/server';
 import { ensureBootstrapAdmin } from '../../server/services/userService';
@@ -43,9 +44,20 @@ export async function resetDatabase(running: RunningServer): Promise<void> {
   await ensureBootstrapAdmin(running.ctx);
 }
 
-/** A supertest agent that keeps cookies, signed in as the given account. */
+/** The header Crestline's own client sends on every API call: `.set(AS_CLIENT)` on a bare supertest request. */
+export const AS_CLIENT = { [CLIENT_HEADER]: CLIENT_HEADER_VALUE };
+
+/**
+ * A supertest agent that keeps cookies and, like Crestline's own client, sends its header on every
+ * request (else state-changing requests with the cookie are refused as cross-origin).
+ */
+export function browserAgent(running: RunningServer) {
+  return supertest.agent(running.server).set(AS_CLIENT);
+}
+
+/** A browser-like agent (cookies, client header), signed in as the given account. */
 export async function signedIn(running: RunningServer, email: string, password: string) {
-  const agent = supertest.agent(running.server);
+  const agent = browserAgent(running);
   const res = await agent.post('/api/auth/login').send({ email, password });
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return agent;

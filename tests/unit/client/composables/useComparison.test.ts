@@ -19,7 +19,10 @@ const captures: Record<number, CaptureDetail> = {
   1: { id: 1, name: 'before', t0: 0, durationS: 0.2, channels: [channel(0, 'U', 'V')] } as CaptureDetail,
   2: { id: 2, name: 'after', t0: 0, durationS: 0.2, channels: [channel(0, 'U', 'V'), channel(1, 'I', 'A')] } as CaptureDetail,
 };
-const analyses: Record<number, AnalysisResponse> = { 1: { engineVersion: 1, channels: [analysisOf(325)] }, 2: { engineVersion: 1, channels: [analysisOf(300), analysisOf(10)] } };
+const analyses: Record<number, AnalysisResponse> = {
+  1: { engineVersion: 1, channels: [analysisOf(325)], systems: [], voltageEvents: [] },
+  2: { engineVersion: 1, channels: [analysisOf(300), analysisOf(10)], systems: [], voltageEvents: [] },
+};
 
 /** Capture 1 answers with its samples; capture 2 (more samples than asked for) with min/max buckets. */
 function samples(id: number, q: SamplesQuery): SamplesResponse {
