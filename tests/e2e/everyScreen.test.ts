@@ -40,17 +40,20 @@ const workspacePages = (): PageCheck[] => [
   { name: 'projects', path: '/', ready: '[data-test=projects-table] tbody tr' },
   { name: 'project', path: `/projects/${ids.project}`, ready: '[data-test=capture-link]' },
   { name: 'capture', path: `/captures/${ids.square}`, ready: '[data-test=waveform] canvas' },
-  { name: 'capture-meters', path: `/captures/${ids.square}`, ready: '[data-test=waveform] canvas', tab: { name: 'Meter readings', ready: '[data-test=meter-model]' } },
-  { name: 'capture-harmonics', path: `/captures/${ids.square}`, ready: '[data-test=waveform] canvas', tab: { name: 'Harmonics', ready: '[data-test=spectrum] canvas' } },
+  { name: 'project-members', path: `/projects/${ids.membersProject}`, ready: '[data-test=members-table]' },
+  { name: 'capture-meters', path: `/captures/${ids.square}`, ready: '[data-test=waveform] canvas', tab: { name: 'Meter readings', ready: '[data-test=meter-time]' } },
+  { name: 'capture-harmonics', path: `/captures/${ids.square}`, ready: '[data-test=waveform] canvas', tab: { name: 'Harmonics', ready: '[data-test=limit-check]' } },
+  { name: 'capture-three-phase', path: `/captures/${ids.threePhase}`, ready: '[data-test=waveform] canvas', tab: { name: 'Three-phase', ready: '[data-test=system-view]' } },
   { name: 'capture-power', path: `/captures/${ids.rectifier}`, ready: '[data-test=waveform] canvas', tab: { name: 'Power', ready: '[data-test=power-panel] table' } },
   { name: 'capture-marks', path: `/captures/${ids.overrange}`, ready: '[data-test=waveform] canvas', tab: { name: 'Annotations', ready: '[data-test=annotation-list]' } },
   { name: 'capture-file', path: `/captures/${ids.square}`, ready: '[data-test=waveform] canvas', tab: { name: 'File', ready: '[data-test=capture-metadata]' } },
   { name: 'compare', path: `/compare?ids=${ids.square},${ids.modified}`, ready: '[data-test=compare-waveforms] canvas' },
   { name: 'comparison', path: `/comparisons/${ids.comparison}`, ready: '[data-test=compare-waveforms] canvas' },
-  { name: 'admin-users', path: '/admin/users', ready: '[data-test=users-table] tbody tr' },
+  { name: 'admin-users', path: '/admin/users', ready: '[data-test=all-tokens-table]' },
   { name: 'admin-mail', path: '/admin/mail', ready: '[data-test=mail-table]' },
-  { name: 'account', path: '/account', ready: 'form' },
+  { name: 'account', path: '/account', ready: '[data-test=sessions-table] tbody tr' },
   { name: 'help', path: '/help', ready: 'h1' },
+  { name: 'automate-uploads', path: '/help/automate-uploads', ready: '[data-test=automation-script]' },
   { name: 'not-found', path: '/no-such-page', ready: 'h1' },
 ];
 const publicPages = (): PageCheck[] => [
@@ -80,7 +83,7 @@ describe.each([PHONE, TABLET, DESKTOP_DARK])('every page on a $name screen, $wid
     const found: string[] = [];
     for (const pg of workspacePages()) found.push(...(await problems(s.page, screen, pg)));
     expect(found).toEqual([]);
-  }, 180_000);
+  }, 240_000);
 
   it('the public pages fit the width and pass axe', async () => {
     const found: string[] = [];
@@ -92,7 +95,7 @@ describe.each([PHONE, TABLET, DESKTOP_DARK])('every page on a $name screen, $wid
 describe('dialogs on a phone', () => {
   const s = onScreen(() => browser, () => app, PHONE);
 
-  it('share, mark and new project fit the screen and pass axe', async () => {
+  it('share, mark, report and new project fit the screen and pass axe', async () => {
     const { page } = s;
     const found: string[] = [];
     const dialogProblems = async (name: string) => {
@@ -111,6 +114,8 @@ describe('dialogs on a phone', () => {
     await dialogProblems('share');
     await page.locator('[data-test=mark-view]').click();
     await dialogProblems('mark');
+    await page.locator('[data-test=report-open]').click();
+    await dialogProblems('report');
     await page.goto(`${app.url}/`);
     await page.locator('[data-test=new-project]').click();
     await dialogProblems('project');

@@ -43,9 +43,11 @@ export async function seedScreens(app: RunningServer) {
   const modified = await fixture('inverter-modified-sine.csv');
   const rectifier = await fixture('rectifier-current.csv');
   const overrange = await upload('overrange-burst.csv', overrangeCsv());
+  const threePhase = await fixture('switchboard-three-phase-motor-start.csv');
+  const membersProject: number = (await admin.post('/api/projects').send({ name: 'Substation 4, members only', visibility: 'members' })).body.project.id;
   const comparison: number = (await admin.post('/api/comparisons').send({ name: 'Square vs modified sine', captureIds: [square, modified] })).body.id;
   const shareToken: string = (await admin.post(`/api/captures/${rectifier}/shares`).send({ expiresInDays: 7 })).body.token;
-  return { project, square, modified, rectifier, overrange, comparison, shareToken };
+  return { project, square, modified, rectifier, overrange, threePhase, membersProject, comparison, shareToken };
 }
 
 /**
