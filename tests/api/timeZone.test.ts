@@ -15,9 +15,10 @@ import { ADMIN, AS_CLIENT, resetDatabase, signedIn, startTestServer } from '../h
  * Here the test database server runs in another zone (set as root, restored afterwards), once ahead
  * of UTC (links would die early) and once behind (they would live on).
  */
-const rootOptions = '.data/test/my.cnf';
+// root.cnf: since the MariaDB root was locked down, root signs in over the socket with its generated password only.
+const rootOptions = '.data/test/root.cnf';
 const asRoot = (statement: string) =>
-  execFileSync('mariadb', [`--defaults-file=${rootOptions}`, '--user=root', '--batch', '--skip-column-names', '-e', statement]).toString().trim();
+  execFileSync('mariadb', [`--defaults-file=${rootOptions}`, '--batch', '--skip-column-names', '-e', statement]).toString().trim();
 
 let original = 'SYSTEM';
 beforeAll(() => {
