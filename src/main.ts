@@ -18,7 +18,11 @@ applyStoredColorScheme();
 createApp(App)
   .use(createPinia())
   .use(router)
-  .use(PrimeVue, { theme: { preset: CrestlinePreset, options: { darkModeSelector: '.crest-dark', cssLayer: false } } })
+  .use(PrimeVue, {
+    theme: { preset: CrestlinePreset, options: { darkModeSelector: '.crest-dark', cssLayer: false } },
+    // A password field is no combobox: PrimeVue's aria-expanded on it is an ARIA error (axe: aria-allowed-attr).
+    pt: { password: { pcInputText: { root: { 'aria-expanded': undefined } } } },
+  })
   .use(ToastService)
   .use(ConfirmationService)
   .directive('tooltip', Tooltip)

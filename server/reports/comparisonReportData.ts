@@ -1,4 +1,4 @@
-import { firstRisingCrossing, valueAt } from '../../shared/reports/alignedCycles';
+import { envelopeAt, firstRisingCrossing } from '../../shared/reports/alignedCycles';
 import { CHANNEL_COLOURS } from '../../shared/reports/palette';
 import type { ChannelAnalysis } from '../../shared/schemas/analysis';
 import type { CaptureChannel, CaptureDetail } from '../../shared/schemas/capture';
@@ -44,7 +44,10 @@ async function overlay(ctx: AppContext, items: ComparedCapture[], align: Compari
     const from = align === 'trigger' ? Math.max(0, t0) : t0;
     const s = await sampleWindow(ctx, it.capture.id, { channel: it.channel.index, fromS: from, toS: from + spanS + (periods[k] ?? 0) * 1.2, points: 200_000 });
     const start = align === 'zeroCrossing' ? (firstRisingCrossing(s) ?? from) : from;
-    const values = Array.from({ length: OVERLAY_POINTS }, (_, i) => valueAt(s, start + i * stepS));
+    const values = Array.from({ length: OVERLAY_POINTS }, (_, i) => {
+      const e = envelopeAt(s, start + i * stepS);
+      return e === null ? null : (e.lo + e.hi) / 2;
+    });
     traces.push({ label: `${it.capture.name} · ${it.channel.name}`, color: CHANNEL_COLOURS[k % CHANNEL_COLOURS.length], t0S: 0, stepS, values });
   }
   return { traces, spanS };

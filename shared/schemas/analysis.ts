@@ -51,9 +51,12 @@ export const WarningCode = z.enum([
 ]);
 export type WarningCode = z.infer<typeof WarningCode>;
 
+export const WarningSeverity = z.enum(['info', 'warning', 'danger']);
+export type WarningSeverity = z.infer<typeof WarningSeverity>;
+
 export const AnalysisWarning = z.object({
   code: WarningCode,
-  severity: z.enum(['info', 'warning', 'danger']),
+  severity: WarningSeverity,
   message: z.string(),
 });
 export type AnalysisWarning = z.infer<typeof AnalysisWarning>;

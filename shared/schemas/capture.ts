@@ -143,19 +143,27 @@ export const SamplesQuery = z.object({
 });
 export type SamplesQuery = z.infer<typeof SamplesQuery>;
 
-/**
- * A span of one channel: the samples themselves (`raw`), or min/max per bucket (`minmax`) when the span
- * holds more samples than points asked. Time of element i: t0S + i·stepS. Invalid samples are null.
- */
-export const SamplesResponse = z.object({
+const SamplesBase = z.object({
   channel: z.number().int(),
-  mode: z.enum(['raw', 'minmax']),
+  /** Time of element 0, in seconds; element i lies at t0S + i·stepS. */
   t0S: z.number(),
+  /** Seconds between elements: one sample period (raw) or one bucket (minmax). */
   stepS: z.number(),
   startIndex: z.number().int(),
   sampleCount: z.number().int(),
-  values: z.array(z.number().nullable()).optional(),
-  min: z.array(z.number().nullable()).optional(),
-  max: z.array(z.number().nullable()).optional(),
 });
+
+/** The samples themselves; invalid samples (empty or overrange cells) are null. */
+export const RawSamples = SamplesBase.extend({ mode: z.literal('raw'), values: z.array(z.number().nullable()) });
+export type RawSamples = z.infer<typeof RawSamples>;
+
+/** Lowest and highest sample of each bucket; a bucket of invalid samples only is null in both. */
+export const MinMaxSamples = SamplesBase.extend({ mode: z.literal('minmax'), min: z.array(z.number().nullable()), max: z.array(z.number().nullable()) });
+export type MinMaxSamples = z.infer<typeof MinMaxSamples>;
+
+/**
+ * A span of one channel: the samples themselves (`raw`), or min/max per bucket (`minmax`) when the span
+ * holds more samples than points asked. A union on `mode`, so that every reader handles both answers.
+ */
+export const SamplesResponse = z.discriminatedUnion('mode', [RawSamples, MinMaxSamples]);
 export type SamplesResponse = z.infer<typeof SamplesResponse>;

@@ -1,11 +1,7 @@
-import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, SamplesResponse, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
+import type { AnalysisResponse, CaptureDetail, CaptureList, CaptureListQuery, SamplesQuery, UpdateCaptureRequest, UploadResponse } from '../../shared/schemas/capture';
 import { api, ApiError, clientHeaders, toError } from './http';
-
-const query = (q: Record<string, string | number | undefined>) =>
-  Object.entries(q)
-    .filter(([, v]) => v !== undefined && v !== '')
-    .map(([k, v]) => `${encodeURIComponent(k)}=${encodeURIComponent(String(v))}`)
-    .join('&');
+import { queryString as query } from './queryString';
+import { fetchSamples } from './samples';
 
 export const listCaptures = (q: Partial<CaptureListQuery>) => api<CaptureList>('GET', `/captures?${query(q)}`);
 export const getCapture = (id: number) => api<CaptureDetail>('GET', `/captures/${id}`);
@@ -14,8 +10,7 @@ export const deleteCapture = (id: number) => api<void>('DELETE', `/captures/${id
 export const updateCapture = (id: number, req: UpdateCaptureRequest) => api<CaptureDetail>('PATCH', `/captures/${id}`, req);
 export const setComtradeValues = (id: number, values: 'primary' | 'secondary') => api<CaptureDetail>('POST', `/captures/${id}/comtrade-values`, { values });
 export const giveSampleRate = (id: number, sampleRate: number) => api<CaptureDetail>('POST', `/captures/${id}/sample-rate`, { sampleRate });
-export const getSamples = (id: number, q: { channel: number; fromS?: number; toS?: number; points: number }) =>
-  api<SamplesResponse>('GET', `/captures/${id}/samples?${query(q)}`);
+export const getSamples = (id: number, q: SamplesQuery) => fetchSamples(`/captures/${id}/samples?${query(q)}`);
 export const originalUrl = (id: number) => `/api/captures/${id}/original`;
 
 /** Uploads one file (or a COMTRADE .cfg with its .dat in `data`) with progress (fetch cannot report upload progress, XMLHttpRequest can). */

@@ -3,12 +3,7 @@ import type { ChannelSetupPatch, CreateProbePresetRequest, ProbePreset } from '.
 import type { TrendQuery, TrendResponse } from '../../shared/schemas/powerQuality';
 import type { SystemsRequest } from '../../shared/schemas/threePhase';
 import { api } from './http';
-
-const query = (q: Record<string, string | number | undefined>) =>
-  Object.entries(q)
-    .filter(([, v]) => v !== undefined)
-    .map(([k, v]) => `${k}=${encodeURIComponent(String(v))}`)
-    .join('&');
+import { queryString as query } from './queryString';
 
 export type TrendRequest = Pick<TrendQuery, 'channel' | 'kind' | 'points'> & { fromS?: number; toS?: number };
 

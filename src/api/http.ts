@@ -36,4 +36,11 @@ export async function api<T>(method: string, path: string, body?: unknown): Prom
   return res.status === 204 ? (undefined as T) : ((await res.json()) as T);
 }
 
+/** A GET answered as bytes (the binary samples answer, say), with the same cookies, header and errors as `api`. */
+export async function apiBytes(path: string, accept: string): Promise<ArrayBuffer> {
+  const res = await fetch(`/api${path}`, { credentials: 'same-origin', headers: { ...clientHeaders, accept } });
+  if (!res.ok) throw await toError(res);
+  return res.arrayBuffer();
+}
+
 export { toError };

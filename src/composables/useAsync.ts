@@ -3,6 +3,7 @@ import { ref } from 'vue';
 import { useRouter } from 'vue-router';
 import { isApiError } from '../api/http';
 import { useSessionStore } from '../stores/session';
+import { to } from '../router';
 
 /**
  * Runs API calls for a view: a loading flag, errors as toasts with the server's message, and a 401
@@ -23,7 +24,7 @@ export function useAsync() {
     } catch (e) {
       if (isApiError(e) && e.status === 401 && router.currentRoute.value.name !== 'sign-in') {
         session.expire();
-        await router.push({ name: 'sign-in', query: { next: router.currentRoute.value.fullPath } });
+        await router.push(to('sign-in', {}, { next: router.currentRoute.value.fullPath }));
         return undefined;
       }
       const detail = isApiError(e) ? e.message + (e.line ? ` (line ${e.line})` : '') : String(e);

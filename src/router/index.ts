@@ -15,7 +15,7 @@ declare module 'vue-router' {
   }
 }
 
-const routes: (RouteRecordRaw & { name: AppRouteName })[] = [
+export const routes: (RouteRecordRaw & { name: AppRouteName })[] = [
   { path: '/sign-in', name: 'sign-in', component: () => import('../views/SignInView.vue'), meta: { public: true, bare: true } },
   { path: '/shared/:token', name: 'shared', component: () => import('../views/SharedView.vue'), props: true, meta: { public: true, bare: true } },
   { path: '/reset-password', name: 'reset-password', component: () => import('../views/ResetPasswordView.vue'), meta: { public: true, bare: true } },

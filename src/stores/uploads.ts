@@ -1,8 +1,9 @@
 import { defineStore } from 'pinia';
 import { ref } from 'vue';
 import type { CaptureStatus } from '../../shared/schemas/capture';
-import { getCapture, uploadCapture } from '../api/captures';
+import { uploadCapture } from '../api/captures';
 import { isApiError } from '../api/http';
+import { isSettled, useCaptureStatusStore } from './captureStatus';
 import { uploadGroups } from './uploadGroups';
 
 export interface UploadItem {
@@ -16,10 +17,12 @@ export interface UploadItem {
   message: string;
 }
 
-const POLL_MS = 700;
-
-/** Uploads in flight and their processing status, shared by every view that shows them. */
+/**
+ * Uploads in flight and their processing status, shared by every view that shows them; the statuses come
+ * from the one capture status poller, and outlive the page an upload started on.
+ */
 export const useUploadsStore = defineStore('uploads', () => {
+  const statuses = useCaptureStatusStore();
   const items = ref<UploadItem[]>([]);
   let nextKey = 1;
   const listeners = new Set<(item: UploadItem) => void>();
@@ -30,20 +33,30 @@ export const useUploadsStore = defineStore('uploads', () => {
     return () => listeners.delete(fn);
   }
 
-  async function follow(item: UploadItem) {
-    while (item.captureId && (item.status === 'queued' || item.status === 'processing')) {
-      await new Promise((r) => setTimeout(r, POLL_MS));
-      try {
-        const c = await getCapture(item.captureId);
+  /** Called when an upload has its capture id (the capture now exists, in the queue). */
+  const addedListeners = new Set<(item: UploadItem) => void>();
+  function onAdded(fn: (item: UploadItem) => void) {
+    addedListeners.add(fn);
+    return () => addedListeners.delete(fn);
+  }
+
+  function follow(item: UploadItem) {
+    const settle = () => listeners.forEach((fn) => fn(item));
+    if (!item.captureId || (item.status !== 'queued' && item.status !== 'processing')) return settle();
+    const stop = statuses.follow(item.captureId, (answer) => {
+      if ('capture' in answer) {
+        const c = answer.capture;
         item.status = c.status;
         // A COMTRADE message names its file and line itself.
         item.message = c.error ? `${c.error.message}${c.error.line && !c.error.message.includes(`line ${c.error.line}`) ? ` (line ${c.error.line})` : ''}` : item.message;
-      } catch (e) {
+        if (!isSettled(c)) return;
+      } else {
         item.status = 'failed';
-        item.message = isApiError(e) ? e.message : String(e);
+        item.message = isApiError(answer.error) ? answer.error.message : String(answer.error);
       }
-    }
-    listeners.forEach((fn) => fn(item));
+      stop();
+      settle();
+    });
   }
 
   /** `channelSetup`: JSON of setups applied from the first analysis on (a probe preset chosen at upload). */
@@ -61,7 +74,8 @@ export const useUploadsStore = defineStore('uploads', () => {
           tracked.status = r.status;
           tracked.duplicate = r.duplicate;
           if (r.duplicate) tracked.message = 'Already uploaded: this is the existing capture';
-          return follow(tracked);
+          addedListeners.forEach((fn) => fn(tracked));
+          follow(tracked);
         })
         .catch((e) => {
           tracked.status = 'failed';
@@ -75,5 +89,5 @@ export const useUploadsStore = defineStore('uploads', () => {
     items.value = items.value.filter((i) => i.key !== key);
   }
 
-  return { items, add, dismiss, onSettled };
+  return { items, add, dismiss, onSettled, onAdded };
 });

@@ -28,6 +28,9 @@ export const CrestlinePreset = definePreset(Aura, {
           500: '{stone.500}', 600: '{stone.600}', 700: '{stone.700}', 800: '{stone.800}', 900: '{stone.900}', 950: '{stone.950}',
         },
         primary: { color: '{petrol.700}', contrastColor: '#ffffff', hoverColor: '{petrol.800}', activeColor: '{petrol.900}' },
+        // One step darker than Aura's muted text, for 4.5:1 on the warm-grey surfaces (WCAG 1.4.3).
+        text: { mutedColor: '{surface.600}' },
+        formField: { placeholderColor: '{surface.600}' },
       },
       dark: {
         surface: {
@@ -35,6 +38,39 @@ export const CrestlinePreset = definePreset(Aura, {
           600: '#323a3c', 700: '#252c2e', 800: '#1b2123', 900: '#141819', 950: '#0d1011',
         },
         primary: { color: '{petrol.300}', contrastColor: '{petrol.950}', hoverColor: '{petrol.200}', activeColor: '{petrol.100}' },
+        text: { mutedColor: '{surface.300}' },
+        formField: { placeholderColor: '{surface.300}' },
+      },
+    },
+  },
+  components: {
+    // The unchosen options of a SelectButton: Aura's grey is too light to read on its own background.
+    togglebutton: {
+      colorScheme: {
+        light: { root: { color: '{surface.600}' }, icon: { color: '{surface.600}' } },
+        dark: { root: { color: '{surface.300}' }, icon: { color: '{surface.300}' } },
+      },
+    },
+    // Text and outlined buttons in Aura's 500 shades fall short of 4.5:1 on white; 700 passes.
+    button: {
+      colorScheme: {
+        light: {
+          text: { secondary: { color: '{surface.600}' }, danger: { color: '{red.700}' }, success: { color: '{green.700}' }, warn: { color: '{orange.700}' }, info: { color: '{sky.700}' } },
+          outlined: { secondary: { color: '{surface.600}' }, danger: { color: '{red.700}' }, success: { color: '{green.700}' }, warn: { color: '{orange.700}' }, info: { color: '{sky.700}' } },
+        },
+        dark: { text: { secondary: { color: '{surface.300}' } }, outlined: { secondary: { color: '{surface.300}' } } },
+      },
+    },
+    // Aura's message text (600 on 50) falls short of 4.5:1 for warnings and successes; a step darker passes.
+    message: {
+      colorScheme: {
+        light: {
+          info: { color: '{blue.700}', simple: { color: '{blue.700}' } },
+          success: { color: '{green.700}', simple: { color: '{green.700}' } },
+          warn: { color: '{yellow.800}', simple: { color: '{yellow.800}' } },
+          error: { color: '{red.700}', simple: { color: '{red.700}' } },
+          secondary: { color: '{surface.700}', simple: { color: '{surface.700}' } },
+        },
       },
     },
   },

@@ -15,7 +15,7 @@ export function waveformSection(w: ReportWriter, d: CaptureReportData): void {
     w.text(`${c.name}: ${span}, ${formatSI(a.window.startS, 's', 4)} to ${formatSI(a.window.endS, 's', 4)}${s.mode === 'minmax' ? ', drawn as the minimum and maximum of each stretch of samples' : ''}`, { size: 8, color: '#686357' });
     w.block(155, (box) =>
       drawTimePlot(w, box, {
-        traces: [{ label: `${c.name} (${c.unit || 'no unit'})`, color: CHANNEL_COLOURS[k % CHANNEL_COLOURS.length], t0S: s.t0S, stepS: s.stepS, values: s.values, min: s.min, max: s.max }],
+        traces: [{ label: `${c.name} (${c.unit || 'no unit'})`, color: CHANNEL_COLOURS[k % CHANNEL_COLOURS.length], t0S: s.t0S, stepS: s.stepS, ...(s.mode === 'raw' ? { values: s.values } : { min: s.min, max: s.max }) }],
         xRange: [a.window.startS, a.window.endS],
         xLabel: 'Time (s)',
         yLabel: c.unit ? `${c.name} (${c.unit})` : c.name,

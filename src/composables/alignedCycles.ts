@@ -1,1 +1,0 @@
-export { firstRisingCrossing, valueAt } from '../../shared/reports/alignedCycles';
