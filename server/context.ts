@@ -1,7 +1,7 @@
 import type { Config } from './config';
 import type { Db } from './db/client';
 import type { Mailer } from './mail/mailer';
-import type { IngestWorkerClient } from './workers/IngestWorkerClient';
+import type { IngestWorkerPool } from './workers/IngestWorkerPool';
 
 /** What routes and services need from the running server. */
 export interface AppContext {
@@ -15,5 +15,5 @@ export interface AppContext {
   /** Answers whether the database is reachable, for /api/health. */
   pingDatabase(): Promise<boolean>;
   /** A worker thread for figures computed on request (span figures), so requests never block the event loop. */
-  spanWorkers: IngestWorkerClient;
+  spanWorkers: IngestWorkerPool;
 }

@@ -5,7 +5,7 @@ import type { AppContext } from './context';
 import { migrateDatabase, openDatabase } from './db/client';
 import { loadSessionKey } from './services/sessionSecret';
 import { CaptureProcessor } from './jobs/captureProcessor';
-import { IngestWorkerClient } from './workers/IngestWorkerClient';
+import { IngestWorkerPool } from './workers/IngestWorkerPool';
 import { createMailer } from './mail/mailer';
 import { startMailSink } from './mail/mailSink';
 import { lockDataDir } from './services/dataDirLock';
@@ -92,7 +92,7 @@ export async function startServer(overrides: Partial<Record<keyof Config, string
       mailer: createMailer(config, sink?.port ?? null),
       publicUrl: '',
       sessionKey: await loadSessionKey(config.SESSION_SECRET, config.DATA_DIR),
-      spanWorkers: new IngestWorkerClient(1),
+      spanWorkers: new IngestWorkerPool(1),
       pingDatabase: async () => {
         try {
           await database.pool.query('SELECT 1');

@@ -6,7 +6,7 @@ import { findCaptureRow } from '../db/captureRepository';
 import { isDatabaseAway } from '../errors';
 import { captures, jobs } from '../db/schema';
 import { compressOriginal, readableOriginal } from '../services/originalFiles';
-import { IngestFailure, IngestWorkerClient } from '../workers/IngestWorkerClient';
+import { IngestFailure, IngestWorkerPool } from '../workers/IngestWorkerPool';
 import type { IngestRequest } from '../workers/ingestTask';
 import { maxSamples, taskBudgetMs } from './ingestLimits';
 import { claimJob, enqueue, heartbeat, MAX_ATTEMPTS, ownedBy, releaseJob, type ClaimedJob } from './jobQueue';
@@ -28,8 +28,8 @@ const MAX_BACKOFF_MS = 10_000;
  */
 export class CaptureProcessor {
   readonly workerId = `${hostname()}:${process.pid}:${randomBytes(3).toString('hex')}`;
-  /** One worker client per slot: stopping a stuck file's worker never touches another file's task. */
-  readonly slots: IngestWorkerClient[];
+  /** One worker pool per slot: stopping a stuck file's worker never touches another file's task. */
+  readonly slots: IngestWorkerPool[];
   private running = false;
   /** On a deliberate stop, interrupted jobs go back to the queue; an abandon leaves them as a crash would. */
   private releaseOnStop = true;
@@ -38,7 +38,7 @@ export class CaptureProcessor {
   private background = new Set<Promise<unknown>>();
 
   constructor(private readonly ctx: AppContext) {
-    this.slots = Array.from({ length: ctx.config.INGEST_CONCURRENCY }, () => new IngestWorkerClient(ctx.config.INGEST_WORKERS));
+    this.slots = Array.from({ length: ctx.config.INGEST_CONCURRENCY }, () => new IngestWorkerPool(ctx.config.INGEST_WORKERS));
   }
 
   start(): void {
@@ -75,7 +75,7 @@ export class CaptureProcessor {
     await Promise.all(this.loops.map((l) => l.catch(() => undefined)));
   }
 
-  private async run(slot: IngestWorkerClient): Promise<void> {
+  private async run(slot: IngestWorkerPool): Promise<void> {
     let pauseMs = POLL_MS;
     while (this.running) {
       let job: ClaimedJob | null = null;
@@ -108,7 +108,7 @@ export class CaptureProcessor {
     });
   }
 
-  private async process(job: ClaimedJob, slot: IngestWorkerClient): Promise<void> {
+  private async process(job: ClaimedJob, slot: IngestWorkerPool): Promise<void> {
     const { db, config } = this.ctx;
     const capture = await findCaptureRow(db, job.captureId);
     if (!capture) return;

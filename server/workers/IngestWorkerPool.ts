@@ -31,10 +31,10 @@ interface PooledWorker {
  *
  * Every task has a time budget: a worker still busy when it runs out is terminated (V8 stops even a
  * tight loop or a backtracking regular expression), the task fails with `timeout`, and the next task
- * gets a fresh worker. Each job slot of the processor owns its own client, so killing one file's
+ * gets a fresh worker. Each job slot of the processor owns its own pool, so killing one file's
  * worker never touches another file's task.
  */
-export class IngestWorkerClient {
+export class IngestWorkerPool {
   private workers: PooledWorker[] = [];
   private nextId = 1;
   private pending = new Map<number, { resolve: (r: unknown) => void; reject: (e: Error) => void; owner: PooledWorker }>();
