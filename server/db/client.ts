@@ -6,9 +6,10 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import * as schema from './schema';
 
-export type Db = MySql2Database<typeof schema>;
+/** The drizzle handle over the pool; `$client` is the pool itself (blobTransaction takes a connection of it). */
+export type Db = MySql2Database<typeof schema> & { $client: mysql.Pool };
 /** The database or a transaction on it: repository functions that may run inside a transaction take this. */
-export type DbOrTx = Db | Parameters<Parameters<Db['transaction']>[0]>[0];
+export type DbOrTx = MySql2Database<typeof schema> | Parameters<Parameters<Db['transaction']>[0]>[0];
 
 export interface Database {
   db: Db;

@@ -1,11 +1,15 @@
-import { and, eq, sql } from 'drizzle-orm';
-import type { Db } from '../db/client';
+import { and, eq, getTableName, sql } from 'drizzle-orm';
+import { blobTransaction } from '../db/blobTransaction';
+import type { Db, DbOrTx } from '../db/client';
 import { annotations, captures, channels, jobs, overviews, sampleChunks } from '../db/schema';
 import type { IngestResult } from '../workers/ingestTask';
 import { ownedBy, type ClaimedJob } from './jobQueue';
 import { shortMessage } from './processingFailure';
 
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+
+// The blob-carrying inserts, sent prepared (see blobTransaction). The names are those of schema.ts.
+const INSERT_CHUNK = `INSERT INTO ${getTableName(sampleChunks)} (capture_id, channel_idx, chunk_idx, start_index, count, data) VALUES (?, ?, ?, ?, ?, ?)`;
+const INSERT_OVERVIEW = `INSERT INTO ${getTableName(overviews)} (capture_id, channel_idx, bucket_size, data) VALUES (?, ?, ?, ?)`;
 
 const asBuffer = (u: Uint8Array) => Buffer.from(u.buffer, u.byteOffset, u.byteLength);
 
@@ -13,7 +17,7 @@ const asBuffer = (u: Uint8Array) => Buffer.from(u.buffer, u.byteOffset, u.byteLe
  * Removes what an earlier run stored for a capture (a retry, a re-analysis). Only when there is
  * something: a DELETE over an empty range takes gap locks that deadlock with other captures' inserts.
  */
-async function clearStoredSamples(tx: Tx, captureId: number): Promise<void> {
+async function clearStoredSamples(tx: DbOrTx, captureId: number): Promise<void> {
   const [existing] = await tx.select({ n: sql<number>`COUNT(*)` }).from(channels).where(eq(channels.captureId, captureId));
   if (Number(existing.n) === 0) return;
   for (const table of [sampleChunks, overviews, channels]) await tx.delete(table).where(eq(table.captureId, captureId));
@@ -39,7 +43,7 @@ async function retryOnDeadlock<T>(fn: () => Promise<T>, tries = 4): Promise<T> {
  */
 export function storeReady(db: Db, job: ClaimedJob, workerId: string, r: IngestResult): Promise<void> {
   return retryOnDeadlock(() =>
-    db.transaction(async (tx) => {
+    blobTransaction(db, async (tx, writeBlobs) => {
       const [done] = await tx.update(jobs).set({ status: 'done', finishedAt: sql`NOW()` }).where(ownedBy(job.id, workerId));
       if (done.affectedRows !== 1) throw new Error(`job ${job.id} was taken over by another worker`);
       await clearStoredSamples(tx, job.captureId);
@@ -48,10 +52,10 @@ export function storeReady(db: Db, job: ClaimedJob, workerId: string, r: IngestR
         let start = 0;
         for (const [chunkIdx, data] of c.chunks.entries()) {
           const buf = asBuffer(data);
-          await tx.insert(sampleChunks).values({ captureId: job.captureId, channelIdx: idx, chunkIdx, startIndex: start, count: buf.length / 4, data: buf });
+          await writeBlobs(INSERT_CHUNK, [job.captureId, idx, chunkIdx, start, buf.length / 4, buf]);
           start += buf.length / 4;
         }
-        for (const o of c.overviews) await tx.insert(overviews).values({ captureId: job.captureId, channelIdx: idx, bucketSize: o.bucketSize, data: asBuffer(o.data) });
+        for (const o of c.overviews) await writeBlobs(INSERT_OVERVIEW, [job.captureId, idx, o.bucketSize, asBuffer(o.data)]);
         if (c.suggestions.length) {
           await tx.insert(annotations).values(
             c.suggestions.map((a) => ({ captureId: job.captureId, channelIdx: idx, startS: a.startS, endS: a.endS, label: a.label, note: '', severity: a.severity, source: 'finder' as const, state: 'suggested' as const, reason: a.reason })),

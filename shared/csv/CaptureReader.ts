@@ -112,8 +112,11 @@ export class CaptureReader {
     }
   }
 
-  /** Ends the input and returns the capture, or throws a CsvError naming the line. */
-  finish(): CaptureData {
+  /**
+   * Ends the input and returns the capture, or throws a CsvError naming the line. A sample rate given
+   * here replaces the constructor's: a file read while it is uploaded may be told it only at the end.
+   */
+  finish(sampleRateHint = this.options.sampleRateHint): CaptureData {
     if (this.byteMode) {
       if (!this.layout) {
         this.window.add(this.byteText.decode());
@@ -124,7 +127,7 @@ export class CaptureReader {
       if (!this.layout) this.startBody(true);
       this.consume('', true);
     }
-    return this.result();
+    return this.result(sampleRateHint);
   }
 
   private byteMode = false;
@@ -451,7 +454,7 @@ export class CaptureReader {
     return new CsvError(`Expected ${expected} values (${excerpt(names, 200)}) but found ${found}.`, this.line);
   }
 
-  private result(): CaptureData {
+  private result(sampleRateHint: number | null | undefined): CaptureData {
     const layout = this.layout as CaptureLayout;
     const rows = this.rowCount;
     const lines = this.rowLines.values();
@@ -472,8 +475,8 @@ export class CaptureReader {
     } else if (layout.interval) {
       interval = layout.interval.seconds;
       timeSource = 'preamble';
-    } else if (this.options.sampleRateHint && this.options.sampleRateHint > 0) {
-      interval = 1 / this.options.sampleRateHint;
+    } else if (sampleRateHint && sampleRateHint > 0) {
+      interval = 1 / sampleRateHint;
       timeSource = 'given';
     } else {
       throw new CsvError('The file has neither a time column nor a sample interval in its header lines: give the sample rate.', undefined, 'needs_sample_rate');
