@@ -181,6 +181,7 @@ async function uploadAndWait(file: string, name: string, data?: string): Promise
   const res = await fetch(`${base}/api/captures`, { method: 'POST', headers, body: form });
   if (!res.ok) throw new Error(`bench upload refused: ${res.status} ${await res.text()}`);
   const { id } = (await res.json()) as { id: number };
+  if (process.env.CRESTLINE_TRACE) console.log(`upload of ${name} answered after ${(performance.now() - t).toFixed(0)} ms`);
   for (;;) {
     const c = (await (await fetch(`${base}/api/captures/${id}`, { headers })).json()) as { status: string; error: unknown };
     if (c.status === 'ready') return { ms: performance.now() - t, id };

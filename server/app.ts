@@ -17,7 +17,7 @@ import { authRoutes } from './routes/auth';
 import { comparisonRoutes } from './routes/comparisons';
 import { complianceRoutes } from './routes/compliance';
 import { exportRoutes } from './routes/exports';
-import { captureRoutes } from './routes/captures';
+import { captureRoutes, type ReadUpload } from './routes/captures';
 import { captureSetupRoutes } from './routes/captureSetup';
 import { healthRoutes } from './routes/health';
 import { projectMemberRoutes } from './routes/projectMembers';
@@ -31,7 +31,7 @@ import { userRoutes } from './routes/users';
 const clientDir = path.resolve('dist/client');
 
 /** The Express application, without listening: tests boot it on port 0. */
-export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void } = {}): Express {
+export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void; readUpload?: ReadUpload } = {}): Express {
   const app = express();
   app.disable('x-powered-by');
   if (ctx.config.TRUST_PROXY) app.set('trust proxy', /^\d+$/.test(ctx.config.TRUST_PROXY) ? Number(ctx.config.TRUST_PROXY) : ctx.config.TRUST_PROXY);
@@ -74,7 +74,7 @@ export function createApp(ctx: AppContext, hooks: { onCaptureQueued?: () => void
   const onQueued = hooks.onCaptureQueued ?? (() => undefined);
   api.use(projectRoutes(ctx, onQueued));
   api.use(projectMemberRoutes(ctx));
-  api.use(captureRoutes(ctx, onQueued));
+  api.use(captureRoutes(ctx, onQueued, hooks.readUpload));
   api.use(captureSetupRoutes(ctx, onQueued));
   api.use(annotationRoutes(ctx));
   api.use(comparisonRoutes(ctx));

@@ -105,7 +105,7 @@ export async function startServer(overrides: Partial<Record<keyof Config, string
     teardown.push(() => ctx.spanWorkers.close());
     await ensureBootstrapAdmin(ctx);
     const processor = new CaptureProcessor(ctx);
-    const server = createServer(createApp(ctx, { onCaptureQueued: () => processor.nudge() }));
+    const server = createServer(createApp(ctx, { onCaptureQueued: () => processor.nudge(), readUpload: (bytes) => processor.readUpload(bytes) }));
     if (config.RUN_HTTP) {
       await listen(server, config.PORT, config.HOST).catch((err: unknown) => {
         throw listenError(err, config.PORT, config.HOST, 'PORT');

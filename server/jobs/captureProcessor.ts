@@ -6,7 +6,8 @@ import { findCaptureRow } from '../db/captureRepository';
 import { isDatabaseAway } from '../errors';
 import { captures, jobs } from '../db/schema';
 import { compressOriginal, readableOriginal } from '../services/originalFiles';
-import { IngestFailure, IngestWorkerPool } from '../workers/IngestWorkerPool';
+import { IngestFailure, IngestWorkerPool, type UploadStream } from '../workers/IngestWorkerPool';
+import { EarlyReading } from './earlyReading';
 import type { IngestRequest } from '../workers/ingestTask';
 import { maxSamples, taskBudgetMs } from './ingestLimits';
 import { claimJob, enqueue, heartbeat, MAX_ATTEMPTS, ownedBy, releaseJob, type ClaimedJob } from './jobQueue';
@@ -34,6 +35,11 @@ export class CaptureProcessor {
   /** On a deliberate stop, interrupted jobs go back to the queue; an abandon leaves them as a crash would. */
   private releaseOnStop = true;
   private wakers = new Set<() => void>();
+  /** Slots whose loop is pausing for want of work: an upload may take one that is not held (readUpload). */
+  private pausing = new Set<IngestWorkerPool>();
+  /** Slots kept for an upload, with what their loop waits for before it claims again. */
+  private held = new Map<IngestWorkerPool, Promise<void>>();
+  private readings = new Set<EarlyReading>();
   private loops: Promise<void>[] = [];
   private background = new Set<Promise<unknown>>();
 
@@ -60,6 +66,7 @@ export class CaptureProcessor {
    */
   async stop(): Promise<void> {
     this.running = false;
+    this.dropReadings();
     this.nudge();
     await Promise.all(this.slots.map((s) => s.close()));
     await Promise.all(this.loops);
@@ -70,14 +77,51 @@ export class CaptureProcessor {
   async abandon(): Promise<void> {
     this.running = false;
     this.releaseOnStop = false;
+    this.dropReadings();
     this.nudge();
     await Promise.all(this.slots.map((s) => s.close()));
     await Promise.all(this.loops.map((l) => l.catch(() => undefined)));
   }
 
+  /**
+   * Keeps an idle slot for an upload of about `expectedBytes` and has its worker read the CSV while it
+   * arrives (see EarlyReading); null when no slot is idle. With several slots, one always stays with
+   * the queue, so uploads cannot hold up the processing of what is already waiting.
+   */
+  readUpload(expectedBytes: number): EarlyReading | null {
+    if (!this.running || this.held.size >= Math.max(1, this.slots.length - 1)) return null;
+    const slot = [...this.pausing].find((s) => !this.held.has(s));
+    if (!slot) return null;
+    let free = () => undefined as void;
+    this.held.set(slot, new Promise<void>((resolve) => (free = resolve)));
+    const stream = slot.openStream({ totalBytes: expectedBytes, limits: { maxSamples: maxSamples(this.ctx.config) } });
+    const reading: EarlyReading = new EarlyReading(
+      this.workerId,
+      stream,
+      (job) => this.inBackground(this.process(job, slot, stream).catch((err) => console.error('capture processing:', err)).finally(release)),
+      () => release(),
+    );
+    const release = () => {
+      this.readings.delete(reading);
+      this.held.delete(slot);
+      free();
+    };
+    this.readings.add(reading);
+    return reading;
+  }
+
+  private dropReadings(): void {
+    for (const r of [...this.readings]) r.drop();
+  }
+
   private async run(slot: IngestWorkerPool): Promise<void> {
     let pauseMs = POLL_MS;
     while (this.running) {
+      const held = this.held.get(slot);
+      if (held) {
+        await held;
+        continue;
+      }
       let job: ClaimedJob | null = null;
       try {
         job = await claimJob(this.ctx.db, this.workerId, this.ctx.config.JOB_STALE_SECONDS);
@@ -92,7 +136,11 @@ export class CaptureProcessor {
         }
         job = null;
       }
-      if (!job && this.running) await this.pause(pauseMs);
+      if (!job && this.running) {
+        this.pausing.add(slot);
+        await this.pause(pauseMs);
+        this.pausing.delete(slot);
+      }
     }
   }
 
@@ -108,7 +156,8 @@ export class CaptureProcessor {
     });
   }
 
-  private async process(job: ClaimedJob, slot: IngestWorkerPool): Promise<void> {
+  /** Processes a claimed job on `slot`: from the file, or from the reading of its upload (`stream`). */
+  private async process(job: ClaimedJob, slot: IngestWorkerPool, stream?: UploadStream): Promise<void> {
     const { db, config } = this.ctx;
     const capture = await findCaptureRow(db, job.captureId);
     if (!capture) return;
@@ -125,11 +174,12 @@ export class CaptureProcessor {
     let readable: Awaited<ReturnType<typeof readableOriginal>> | null = null;
     try {
       const t0 = performance.now();
-      readable = await readableOriginal(this.ctx, capture.id);
+      // An upload read as it arrived needs no copy of the file.
+      readable = stream ? null : await readableOriginal(this.ctx, capture.id);
       const setup = await runSetupOf(this.ctx.db, capture);
-      const request: IngestRequest = { file: readable.file, sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint, limits: { maxSamples: maxSamples(config) }, ...setup };
-      if (capture.format === 'comtrade') request.comtrade = { dataFile: readable.dataFile, configName: capture.originalName, dataName: capture.dataName, values: capture.comtradeValues ?? 'primary' };
-      const result = await slot.ingest(request, taskBudgetMs(config, capture.sizeBytes));
+      const request: IngestRequest = { file: readable?.file ?? '', sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint, limits: { maxSamples: maxSamples(config) }, ...setup };
+      if (capture.format === 'comtrade') request.comtrade = { dataFile: readable?.dataFile ?? null, configName: capture.originalName, dataName: capture.dataName, values: capture.comtradeValues ?? 'primary' };
+      const result = await slot.ingest(request, taskBudgetMs(config, capture.sizeBytes), stream);
       const t1 = performance.now();
       if (!this.running) return await this.giveBack(job);
       await storeReady(db, job, this.workerId, result);

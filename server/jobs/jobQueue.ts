@@ -1,5 +1,5 @@
 import { and, eq, inArray, sql } from 'drizzle-orm';
-import type { Db } from '../db/client';
+import type { Db, DbOrTx } from '../db/client';
 import { captures, jobs } from '../db/schema';
 
 export interface ClaimedJob {
@@ -93,4 +93,14 @@ export async function enqueue(db: Pick<Db, 'transaction'>, captureId: number, ki
     await tx.insert(jobs).values({ captureId, kind });
     return true;
   });
+}
+
+/**
+ * Queues the ingest of a capture just created in `tx`, already claimed by `workerId` (as claimJob would
+ * leave it): the process that read the upload as it arrived processes it, and the heartbeat and
+ * ownership rules apply as to any claimed job, so another process takes it over only if this one dies.
+ */
+export async function enqueueClaimed(tx: DbOrTx, captureId: number, workerId: string): Promise<ClaimedJob> {
+  const [{ id }] = await tx.insert(jobs).values({ captureId, kind: 'ingest', status: 'running', lockedBy: workerId, heartbeatAt: sql`NOW()`, attempts: 1 }).$returningId();
+  return { id, captureId, kind: 'ingest', attempts: 1 };
 }

@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import multer from 'multer';
 import { mkdirSync } from 'node:fs';
 import { rm } from 'node:fs/promises';
@@ -14,9 +14,16 @@ import { acceptUpload, captureAnalysis, captureDetail, captureList, deleteCaptur
 import { keptFile, originalStream } from '../services/originalFiles';
 import { sampleWindowData } from '../services/sampleWindowService';
 import { sendSamples } from './sendSamples';
-import { hashingDiskStorage } from '../services/hashingStorage';
+import type { EarlyReading } from '../jobs/earlyReading';
+import { hashingDiskStorage, type FileTap } from '../services/hashingStorage';
+import { isCsvName } from '../services/uploadFormat';
 import { spanFigures } from '../services/spanFiguresService';
 import { SpanFiguresQuery } from '../../shared/schemas/spanFigures';
+
+/** Keeps a processing slot for an upload of about so many bytes, to read it as it arrives (or null). */
+export type ReadUpload = (expectedBytes: number) => EarlyReading | null;
+
+const earlyReadingOf = (req: Request): EarlyReading | null => (req.res?.locals.earlyReading as EarlyReading | undefined) ?? null;
 
 const formatBytes = (n: number) => {
   const units = ['bytes', 'KiB', 'MiB', 'GiB', 'TiB'];
@@ -32,12 +39,19 @@ const formatBytes = (n: number) => {
  * Routes under /captures/:id pass projectScopes first: a capture in a project hidden from the user
  * answers 404, and allow() checks the user's role in the capture's project.
  */
-export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
+export function captureRoutes(ctx: AppContext, onQueued: () => void, readUpload: ReadUpload = () => null): Router {
   const tmp = path.join(ctx.config.DATA_DIR, 'uploads');
   mkdirSync(tmp, { recursive: true });
+  // A CSV in `file` goes to the reading kept for this request, if any, as it arrives.
+  const tap: FileTap = (req, file) => {
+    const reading = earlyReadingOf(req);
+    if (!reading || file.fieldname !== 'file' || !isCsvName(file.originalname)) return null;
+    file.stream.once('end', () => reading.arrived());
+    return (chunk) => reading.push(chunk);
+  };
   // multer streams the files to disk; none is ever held in memory whole. `data` carries a COMTRADE
   // .dat beside its .cfg in `file`; the size limit applies to each file.
-  const upload = multer({ storage: hashingDiskStorage(tmp), limits: { fileSize: ctx.config.UPLOAD_LIMIT_BYTES, files: 2, fields: 10 } }).fields([
+  const upload = multer({ storage: hashingDiskStorage(tmp, tap), limits: { fileSize: ctx.config.UPLOAD_LIMIT_BYTES, files: 2, fields: 10 } }).fields([
     { name: 'file', maxCount: 1 },
     { name: 'data', maxCount: 1 },
   ]);
@@ -45,6 +59,14 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
 
   return Router()
     .post('/captures', allow('admin', 'engineer'), (req, res, next) => {
+      // Asked only once the sender may upload. The request's length stands for the file's size (it only
+      // sizes the columns, which the sample budget caps anyway); no more than the upload limit is believed.
+      const reading = readUpload(Math.min(Number(req.headers['content-length']) || 0, ctx.config.UPLOAD_LIMIT_BYTES));
+      if (reading) {
+        res.locals.earlyReading = reading;
+        // However the request ends, a reading its capture did not take over frees its slot.
+        res.once('close', () => reading.drop());
+      }
       upload(req, res, (err: unknown) => {
         if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
           return next(new AppError(413, 'too_large', `The file is larger than the upload limit of ${limit}`));
@@ -57,7 +79,7 @@ export function captureRoutes(ctx: AppContext, onQueued: () => void): Router {
       const [file, data] = [files.file?.[0], files.data?.[0] ?? null];
       try {
         if (!file) throw new AppError(400, 'no_file', 'Attach the capture file as the form field "file"');
-        const result = await acceptUpload(ctx, currentUser(req), file, UploadFields.parse(req.body ?? {}), data);
+        const result = await acceptUpload(ctx, currentUser(req), file, UploadFields.parse(req.body ?? {}), data, earlyReadingOf(req));
         if (!result.duplicate) onQueued();
         res.status(result.duplicate ? 200 : 202).json(result);
       } finally {

@@ -8,7 +8,8 @@ import { channelAnalyses, powerQualityOf, findCaptureBySha, findCaptureDetail, f
 import { findProject } from '../db/projectRepository';
 import { captures } from '../db/schema';
 import { AppError, forbidden, notFound } from '../errors';
-import { enqueue } from '../jobs/jobQueue';
+import type { EarlyReading } from '../jobs/earlyReading';
+import { enqueue, enqueueClaimed, type ClaimedJob } from '../jobs/jobQueue';
 import { keepOriginal, removeCaptureFiles, sha256OfFile } from './originalFiles';
 import { defaultProjectId } from './projectService';
 import { uploadFormat } from './uploadFormat';
@@ -27,9 +28,10 @@ export interface UploadedFile {
  * second upload of the same bytes to that project as the existing capture, keeps the original, and queues it for processing, all before
  * answering, so the upload returns at once whatever the file's size. A COMTRADE .cfg comes with its
  * .dat (`data`): both are kept, and their bytes one after the other make the SHA-256 (read again here:
- * the hashes taken while each streamed in cannot be joined).
+ * the hashes taken while each streamed in cannot be joined). A CSV this process read as it arrived
+ * (`early`) is processed from that reading: its job is inserted claimed, and handed over once committed.
  */
-export async function acceptUpload(ctx: AppContext, user: User, file: UploadedFile, fields: UploadFields, data: UploadedFile | null = null): Promise<UploadResponse> {
+export async function acceptUpload(ctx: AppContext, user: User, file: UploadedFile, fields: UploadFields, data: UploadedFile | null = null, early: EarlyReading | null = null): Promise<UploadResponse> {
   try {
     const kind = uploadFormat(file.originalname, data?.originalname ?? null);
     const projectId = fields.projectId ?? (await defaultProjectId(ctx, user.id, user.name));
@@ -43,6 +45,8 @@ export async function acceptUpload(ctx: AppContext, user: User, file: UploadedFi
     if (existing) return { id: existing.id, status: existing.status, duplicate: true };
     const name = fields.name || file.originalname.replace(/\.[^.]+$/, '') || 'Capture';
     let keptAs: number | null = null;
+    const claimant = data ? null : (early?.claimant() ?? null);
+    let claimed: ClaimedJob | null = null;
     try {
       const id = await ctx.db.transaction(async (tx) => {
         const [{ id }] = await tx
@@ -65,9 +69,11 @@ export async function acceptUpload(ctx: AppContext, user: User, file: UploadedFi
         const relative = await keepOriginal(ctx, file.path, id, kind.extension);
         const dataPath = data ? await keepOriginal(ctx, data.path, id, 'dat') : null;
         await tx.update(captures).set({ originalPath: relative, dataPath }).where(eq(captures.id, id));
-        await enqueue(tx, id, 'ingest');
+        if (claimant) claimed = await enqueueClaimed(tx, id, claimant);
+        else await enqueue(tx, id, 'ingest');
         return id;
       });
+      if (claimed) early!.adopt(claimed);
       return { id, status: 'queued', duplicate: false };
     } catch (err) {
       // Rolled back after the file was moved: the capture id was never committed, so neither is its file.

@@ -9,6 +9,9 @@ export interface UploadFormat {
 
 const extensionOf = (name: string) => /\.([A-Za-z0-9]{1,8})$/.exec(name)?.[1].toLowerCase() ?? '';
 
+/** Whether a file sent as the form field `file` is read as a CSV export (not a COMTRADE part). */
+export const isCsvName = (name: string) => !['cfg', 'cff', 'dat'].includes(extensionOf(name));
+
 /**
  * What an upload holds, from its file names: a COMTRADE .cfg with its .dat (form fields `file` and
  * `data`), a 2013 combined .cff, or else a CSV export. A half pair is refused before anything is kept.

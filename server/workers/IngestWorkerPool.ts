@@ -3,6 +3,7 @@ import { Worker } from 'node:worker_threads';
 import type { ValidSpanResult } from '../../shared/analysis';
 import type { AnalyseRequest, IngestedChannel, IngestRequest, IngestResult, ParsedFile, SpanFiguresRequest } from './ingestTask';
 import type { IngestReply, IngestTask } from './ingestWorker';
+import type { StreamMessage, StreamOpenOptions, StreamParseRequest, StreamProgress } from './uploadReading';
 
 /** A capture the worker could not read or analyse: a user-facing message, with the file line when known. */
 export class IngestFailure extends Error {
@@ -14,6 +15,18 @@ export class IngestFailure extends Error {
     super(message);
   }
 }
+
+/** An upload being read by a worker while it arrives (see IngestWorkerPool.openStream). */
+export interface UploadStream {
+  /** Hands the next bytes on; false when the worker is too far behind to take more (drop the stream). */
+  push(chunk: Uint8Array): boolean;
+  /** Forgets the reading (the upload failed, was a duplicate, or took too long to arrive). */
+  drop(): void;
+  parse(request: Omit<StreamParseRequest, 'stream'>, budgetMs: number): Promise<ParsedFile>;
+}
+
+/** An upload arriving faster than its worker reads it may run this far ahead; then the reading is dropped. */
+const MAX_UNREAD_STREAM_BYTES = 64 * 1024 * 1024;
 
 interface PooledWorker {
   worker: Worker;
@@ -37,6 +50,9 @@ interface PooledWorker {
 export class IngestWorkerPool {
   private workers: PooledWorker[] = [];
   private nextId = 1;
+  private nextStream = 1;
+  /** Bytes each open upload stream's worker has read so far (it reports every few MiB). */
+  private consumed = new Map<number, number>();
   private pending = new Map<number, { resolve: (r: unknown) => void; reject: (e: Error) => void; owner: PooledWorker }>();
 
   constructor(private readonly size = 1) {}
@@ -53,8 +69,9 @@ export class IngestWorkerPool {
     });
     let markReady = () => undefined as void;
     const pooled: PooledWorker = { busy: 0, worker, ready: new Promise<void>((resolve) => (markReady = resolve)) };
-    pooled.worker.on('message', (reply: IngestReply | { ready: true }) => {
+    pooled.worker.on('message', (reply: IngestReply | { ready: true } | StreamProgress) => {
       if ('ready' in reply) return markReady();
+      if ('consumed' in reply) return void this.consumed.set(reply.stream, reply.consumed);
       const p = this.pending.get(reply.id);
       if (!p) return;
       this.pending.delete(reply.id);
@@ -79,9 +96,12 @@ export class IngestWorkerPool {
     return pooled;
   }
 
-  private run<T>(task: IngestTask, budgetMs: number, transfer: ArrayBuffer[] = []): Promise<T> {
+  private leastBusy(): PooledWorker {
     this.warm();
-    const pooled = this.workers.reduce((a, b) => (b.busy < a.busy ? b : a));
+    return this.workers.reduce((a, b) => (b.busy < a.busy ? b : a));
+  }
+
+  private run<T>(task: IngestTask, budgetMs: number, transfer: ArrayBuffer[] = [], pooled = this.leastBusy()): Promise<T> {
     const id = this.nextId++;
     pooled.busy++;
     return new Promise<T>((resolve, reject) => {
@@ -108,9 +128,49 @@ export class IngestWorkerPool {
     });
   }
 
-  /** Reads a capture file, then analyses and packs its channels in parallel, each task within `budgetMs`. */
-  async ingest(request: IngestRequest, budgetMs: number): Promise<IngestResult> {
-    const parsed = await this.run<ParsedFile>({ kind: 'parse', request }, budgetMs);
+  /**
+   * Opens a CSV reading on one worker, fed with the bytes of an upload as they arrive, so that the
+   * file is read while it is still being sent: `ingest` then finishes it instead of reading the file.
+   */
+  openStream(options: StreamOpenOptions): UploadStream {
+    const pooled = this.leastBusy();
+    const stream = this.nextStream++;
+    const post = (m: StreamMessage, transfer: ArrayBuffer[] = []) => {
+      if (this.workers.includes(pooled)) pooled.worker.postMessage(m, transfer);
+    };
+    let sent = 0;
+    this.consumed.set(stream, 0);
+    post({ stream, open: options });
+    return {
+      push: (chunk) => {
+        // The bytes waiting for the worker are memory on top of the samples: past the bound, the
+        // reading gives up (the file is read from disk once stored) rather than queue without end.
+        if (sent - (this.consumed.get(stream) ?? 0) > MAX_UNREAD_STREAM_BYTES) return false;
+        // A copy the worker can own: the upload's chunk may share its memory with other data.
+        const copy = new Uint8Array(chunk);
+        post({ stream, chunk: copy }, [copy.buffer]);
+        sent += copy.length;
+        return true;
+      },
+      drop: () => {
+        this.consumed.delete(stream);
+        post({ stream, drop: true });
+      },
+      parse: (request, budgetMs) => {
+        this.consumed.delete(stream);
+        return this.run<ParsedFile>({ kind: 'streamParse', request: { ...request, stream } }, budgetMs, [], pooled);
+      },
+    };
+  }
+
+  /**
+   * Reads a capture file (or finishes the reading of its upload, `stream`), then analyses and packs its
+   * channels in parallel, each task within `budgetMs`.
+   */
+  async ingest(request: IngestRequest, budgetMs: number, stream?: UploadStream): Promise<IngestResult> {
+    const parsed = stream
+      ? await stream.parse({ sampleRateHint: request.sampleRateHint, channelSetup: request.channelSetup, systems: request.systems }, budgetMs)
+      : await this.run<ParsedFile>({ kind: 'parse', request }, budgetMs);
     const channels = await Promise.all(
       parsed.channels.map((channel) => {
         const analyse: AnalyseRequest = { channel, sampleRate: parsed.sampleRate, t0: parsed.t0, declared: request.declared ?? null };

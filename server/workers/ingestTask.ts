@@ -1,7 +1,7 @@
 import { closeSync, openSync, readSync } from 'node:fs';
 import { analyzeValidSpan, channelVoltageEvents, findAnomalies, findClipping, threePhaseSystems, type AnomalySuggestion, type ValidSpanResult } from '../../shared/analysis';
 import { CsvError, type ReadLimits } from '../../shared/csv';
-import { readCaptureBytes } from '../../shared/csv/readCaptureBytes';
+import { CaptureByteStream, type CaptureBytesData } from '../../shared/csv/readCaptureBytes';
 import type { ChannelAnalysis } from '../../shared/schemas/analysis';
 import type { DetectedFormat } from '../../shared/schemas/capture';
 import type { ChannelSetup } from '../../shared/schemas/channelSetup';
@@ -98,8 +98,15 @@ export function parseFile(req: IngestRequest): ParsedFile {
     return { ...record, channels, systems: threePhaseSystems(channels, record.sampleRate, record.t0, req.systems ?? null) };
   }
   const t0 = performance.now();
-  const data = readCaptureBytes(fileChunks(req.file), { sampleRateHint: req.sampleRateHint, totalBytes: req.sizeBytes, limits: req.limits });
+  const stream = new CaptureByteStream({ totalBytes: req.sizeBytes, limits: req.limits });
+  for (const chunk of fileChunks(req.file)) stream.push(chunk);
+  const data = stream.finish(req.sampleRateHint);
   if (process.env.CRESTLINE_TRACE) console.log(`  reading ${(performance.now() - t0).toFixed(0)} ms`);
+  return parsedCsv(data, req);
+}
+
+/** What a CSV read from disk, or while it was uploaded, becomes once the capture's setup is applied. */
+export function parsedCsv(data: CaptureBytesData, req: Pick<IngestRequest, 'channelSetup' | 'systems'>): ParsedFile {
   const layout = data.layout;
   const read = data.channels.map((c, i) => ({ name: c.name || `CH${i + 1}`, unit: c.unit, invalidCount: c.invalidCount, firstInvalidLine: c.firstInvalidLine, samples: c.samples }));
   const channels = inEngineeringUnits(read, req.channelSetup);

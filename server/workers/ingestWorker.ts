@@ -2,17 +2,25 @@ import { parentPort } from 'node:worker_threads';
 import { ComtradeError } from '../../shared/comtrade';
 import { CsvError } from '../../shared/csv';
 import { analyseChannel, parseFile, spanFigures, type AnalyseRequest, type IngestRequest, type SpanFiguresRequest } from './ingestTask';
+import { UploadStreams, type StreamMessage, type StreamParseRequest } from './uploadReading';
 
-export type IngestTask = { kind: 'parse'; request: IngestRequest } | { kind: 'analyse'; request: AnalyseRequest } | { kind: 'figures'; request: SpanFiguresRequest };
+export type IngestTask =
+  | { kind: 'parse'; request: IngestRequest }
+  | { kind: 'streamParse'; request: StreamParseRequest }
+  | { kind: 'analyse'; request: AnalyseRequest } | { kind: 'figures'; request: SpanFiguresRequest };
 
 export type IngestReply = { id: number; ok: true; result: unknown } | { id: number; ok: false; error: { code: string; message: string; line?: number } };
 
-parentPort!.on('message', ({ id, task }: { id: number; task: IngestTask }) => {
+const streams = new UploadStreams((progress) => parentPort!.postMessage(progress));
+
+parentPort!.on('message', (message: { id: number; task: IngestTask } | StreamMessage) => {
+  if ('stream' in message) return streams.handle(message);
+  const { id, task } = message;
   try {
     let result: unknown;
     let transfer: ArrayBufferLike[];
-    if (task.kind === 'parse') {
-      const parsed = parseFile(task.request);
+    if (task.kind === 'parse' || task.kind === 'streamParse') {
+      const parsed = task.kind === 'parse' ? parseFile(task.request) : streams.parse(task.request);
       result = parsed;
       transfer = parsed.channels.map((c) => c.samples.buffer);
     } else if (task.kind === 'figures') {

@@ -1,0 +1,72 @@
+import type { UploadStream } from '../workers/IngestWorkerPool';
+import type { ClaimedJob } from './jobQueue';
+
+/**
+ * An upload is read only this long while it arrives. A slower one is dropped (it is read from disk
+ * once stored, as any queued capture), so a slow or stalled client never holds a processing slot.
+ * Reading beside the upload pays on a fast link: a 27 MB file arrives over loopback in about 0.3 s and
+ * takes about as long to read; over a slow link the reading after it is small beside the transfer.
+ */
+export const EARLY_READ_MAX_MS = 10_000;
+
+type State = 'reading' | 'arrived' | 'adopted' | 'dropped';
+
+/**
+ * A processing slot kept for one upload, whose CSV a worker reads while it streams in (the upload's
+ * chunks are pushed to it). Once the upload is stored, its job is inserted already claimed by this
+ * process (`claimant`) and processed on the slot (`adopt`) from the reading, without a second read of
+ * the file. Whatever else happens (a duplicate, a refused form, a failed upload, a slow client), the
+ * reading is dropped and the slot goes back to the queue.
+ */
+export class EarlyReading {
+  private current: State = 'reading';
+  private readonly timer: NodeJS.Timeout;
+
+  constructor(
+    private readonly workerId: string,
+    readonly stream: UploadStream,
+    private readonly onAdopt: (job: ClaimedJob, reading: EarlyReading) => void,
+    private readonly release: () => void,
+  ) {
+    this.timer = setTimeout(() => this.drop(), EARLY_READ_MAX_MS);
+    this.timer.unref();
+  }
+
+  /** Where the reading is: still arriving, arrived, taken over by its capture's job, or dropped. */
+  get state(): State {
+    return this.current;
+  }
+
+  /** The next bytes of the file, in order. */
+  push(chunk: Uint8Array): void {
+    if (this.current === 'reading' && !this.stream.push(chunk)) this.drop();
+  }
+
+  /** The whole file has arrived: the time limit no longer applies (storing it takes a few queries). */
+  arrived(): void {
+    if (this.current !== 'reading') return;
+    clearTimeout(this.timer);
+    this.current = 'arrived';
+  }
+
+  /** The worker id the capture's job is to be inserted under, or null to queue it as usual. */
+  claimant(): string | null {
+    return this.current === 'arrived' ? this.workerId : null;
+  }
+
+  /** The capture is stored and its job claimed by `claimant()`: process it from this reading. */
+  adopt(job: ClaimedJob): void {
+    if (this.current !== 'arrived') throw new Error('only a reading whose upload arrived can be adopted');
+    this.current = 'adopted';
+    this.onAdopt(job, this);
+  }
+
+  /** Forgets the reading and frees the slot, unless a job took it over. Safe to call more than once. */
+  drop(): void {
+    if (this.current === 'adopted' || this.current === 'dropped') return;
+    clearTimeout(this.timer);
+    this.current = 'dropped';
+    this.stream.drop();
+    this.release();
+  }
+}

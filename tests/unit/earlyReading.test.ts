@@ -1,0 +1,57 @@
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { EARLY_READ_MAX_MS, EarlyReading } from '../../server/jobs/earlyReading';
+import type { UploadStream } from '../../server/workers/IngestWorkerPool';
+
+/** The rules that keep an upload's reading from holding a processing slot longer than it pays. */
+function reading(accepts = () => true) {
+  const pushed: number[] = [];
+  const calls = { dropped: 0, released: 0, adopted: 0 };
+  const stream: UploadStream = {
+    push: (c) => (accepts() ? (pushed.push(c.length), true) : false),
+    drop: () => void calls.dropped++,
+    parse: () => Promise.reject(new Error('not used')),
+  };
+  const r = new EarlyReading('worker-1', stream, () => void calls.adopted++, () => void calls.released++);
+  return { r, pushed, calls };
+}
+
+describe('the reading of an upload as it arrives', () => {
+  beforeEach(() => vi.useFakeTimers());
+  afterEach(() => vi.useRealTimers());
+
+  it('is dropped, and its slot released, when the upload takes longer than the limit', () => {
+    const { r, calls } = reading();
+    r.push(new Uint8Array(10));
+    vi.advanceTimersByTime(EARLY_READ_MAX_MS + 1);
+    expect(r.state).toBe('dropped');
+    expect(calls).toMatchObject({ dropped: 1, released: 1 });
+    r.arrived();
+    expect(r.claimant()).toBeNull();
+  });
+
+  it('once arrived, names its worker as the claimant and is no longer timed', () => {
+    const { r, calls } = reading();
+    r.arrived();
+    vi.advanceTimersByTime(EARLY_READ_MAX_MS * 2);
+    expect(r.claimant()).toBe('worker-1');
+    r.adopt({ id: 1, captureId: 2, kind: 'ingest', attempts: 1 });
+    r.drop();
+    expect(r.state).toBe('adopted');
+    expect(calls).toMatchObject({ adopted: 1, dropped: 0, released: 0 });
+  });
+
+  it('gives up when its worker falls too far behind, and takes nothing after', () => {
+    let room = 2;
+    const { r, pushed, calls } = reading(() => room-- > 0);
+    for (let i = 0; i < 5; i++) r.push(new Uint8Array(100));
+    expect(pushed).toEqual([100, 100]);
+    expect(r.state).toBe('dropped');
+    expect(calls.released).toBe(1);
+  });
+
+  it('cannot be adopted before its upload has arrived', () => {
+    const { r } = reading();
+    expect(() => r.adopt({ id: 1, captureId: 2, kind: 'ingest', attempts: 1 })).toThrow();
+    expect(r.claimant()).toBeNull();
+  });
+});
