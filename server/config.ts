@@ -41,7 +41,7 @@ export const ConfigSchema = z.object({
   /** Password hashing cost (bcrypt). 12 in production; tests may lower it for speed. */
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
   /** Worker threads for parsing and analysis of one capture. */
-  INGEST_WORKERS: z.coerce.number().int().min(1).max(16).default(1),
+  INGEST_WORKERS: z.coerce.number().int().min(1).max(16).default(2),
   /** Captures processed at once by this process, each in worker threads of its own. */
   INGEST_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
   /** The least time any parse or analysis task gets before its worker is stopped. */

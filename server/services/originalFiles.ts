@@ -41,7 +41,7 @@ export async function keepOriginal(ctx: AppContext, tempFile: string, captureId:
 
 /**
  * Gzips the kept original once its capture is ready (zlib works on libuv's thread pool, off the event
- * loop), then points the capture at the compressed file. Instrument CSVs shrink about five- to ten-fold.
+ * loop), then points the capture at the compressed file. Instrument CSVs shrink about three- to ten-fold.
  *
  * The gzip is written under a name of its own and renamed into place, so two runs for one capture (a
  * re-analysis soon after the ingest) never write into the same file. The capture is pointed at it only
@@ -65,7 +65,8 @@ async function compressKept(ctx: AppContext, captureId: number, column: KeptFile
   const target = `${plain}.gz`;
   const partial = path.join(filesRoot(ctx), `${target}.${randomBytes(4).toString('hex')}.part`);
   try {
-    await pipeline(createReadStream(source), createGzip({ level: 6 }), createWriteStream(partial, { mode: 0o600 }));
+    // Level 1: on the 27 MB bench CSV 0.33 s of CPU for 8.1 MB, against 1.17 s for 7.3 MB at level 6.
+    await pipeline(createReadStream(source), createGzip({ level: 1 }), createWriteStream(partial, { mode: 0o600 }));
     await rename(partial, path.join(filesRoot(ctx), target));
   } catch (err) {
     await rm(partial, { force: true });

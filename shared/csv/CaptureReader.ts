@@ -51,6 +51,8 @@ export interface CaptureReaderOptions {
   encoding?: 'utf-8' | 'windows-1252';
 }
 
+const lineNumbers = (length: number) => new Uint32Array(length);
+
 /**
  * Reads a capture export pushed as text chunks of any size: the first lines decide the layout
  * (csv-parse handles their quoting), then a fast path of our own reads the numeric body. Going over one
@@ -72,7 +74,8 @@ export class CaptureReader {
   private lineEnding: CaptureData['lineEnding'] = 'LF';
   private line = 0;
   private columns: GrowableColumn[] = [];
-  private rowLines = new GrowableColumn(16);
+  /** The file line of each row, for messages: Uint32 (a file of 4 G lines is far past every limit) halves it. */
+  private rowLines = new GrowableColumn(16, Infinity, lineNumbers);
   private invalid: number[] = [];
   private firstInvalid: (number | null)[] = [];
   private rowCount = 0;
@@ -293,7 +296,7 @@ export class CaptureReader {
     const estimate = this.options.expectedChars ? Math.ceil((this.options.expectedChars / Math.max(head.chars, 1)) * lines.length * 1.05) + 16 : 1024;
     const capacity = Math.min(estimate, this.maxRows);
     this.columns = Array.from({ length: this.layout.fieldCount }, () => new GrowableColumn(capacity, this.maxRows));
-    this.rowLines = new GrowableColumn(capacity, this.maxRows);
+    this.rowLines = new GrowableColumn(capacity, this.maxRows, lineNumbers);
     this.invalid = new Array(this.layout.fieldCount).fill(0);
     this.firstInvalid = new Array(this.layout.fieldCount).fill(null);
     this.line = this.layout.dataStartLine - 1;

@@ -1,16 +1,20 @@
+type Column = Float64Array | Uint32Array;
+
 /**
- * A Float64 column that grows by doubling, but never beyond `maxLength` values, so that a capped reader
- * never holds more than its budget; `values()` is a view, not a copy.
+ * A column of numbers (Float64 values, or Uint32 line numbers) that grows by doubling, but never beyond
+ * `maxLength` values, so that a capped reader never holds more than its budget; `values()` is a view,
+ * not a copy.
  */
-export class GrowableColumn {
-  private data: Float64Array;
+export class GrowableColumn<A extends Column = Float64Array> {
+  private data: A;
   length = 0;
 
   constructor(
     initialCapacity = 1024,
     private readonly maxLength = Infinity,
+    private readonly make: (length: number) => A = (length) => new Float64Array(length) as A,
   ) {
-    this.data = new Float64Array(Math.min(Math.max(16, initialCapacity), maxLength));
+    this.data = make(Math.min(Math.max(16, initialCapacity), maxLength));
   }
 
   /** Appends a value; pushing beyond `maxLength` is a programming error and throws a RangeError. */
@@ -21,7 +25,7 @@ export class GrowableColumn {
 
   private grow(): void {
     if (this.length >= this.maxLength) throw new RangeError(`A column holds at most ${this.maxLength} values.`);
-    const bigger = new Float64Array(Math.min(Math.max(16, this.data.length * 2), this.maxLength));
+    const bigger = this.make(Math.min(Math.max(16, this.data.length * 2), this.maxLength));
     bigger.set(this.data);
     this.data = bigger;
   }
@@ -30,7 +34,7 @@ export class GrowableColumn {
     return this.data[this.length - 1];
   }
 
-  values(): Float64Array {
-    return this.data.subarray(0, this.length);
+  values(): A {
+    return this.data.subarray(0, this.length) as A;
   }
 }
