@@ -200,14 +200,18 @@ export class CaptureProcessor {
       const setup = await runSetupOf(this.ctx.db, capture);
       const request: IngestRequest = { file: readable?.file ?? '', sizeBytes: capture.sizeBytes, sampleRateHint: capture.sampleRateHint, limits: { maxSamples: maxSamples(config) }, ...setup };
       if (capture.format === 'comtrade') request.comtrade = { dataFile: readable?.dataFile ?? null, configName: capture.originalName, dataName: capture.dataName, values: capture.comtradeValues ?? 'primary' };
-      const result = await slot.ingest(request, taskBudgetMs(config, capture.sizeBytes), stream);
+      const budgetMs = taskBudgetMs(config, capture.sizeBytes);
+      const parsed = await slot.read(request, budgetMs, stream);
       const t1 = performance.now();
       if (!this.running) return await this.giveBack(job);
-      await storeReady(db, job, this.workerId, result);
+      // The samples are stored while the channels are analysed; the run commits once both are done.
+      const analysed = slot.analyse(parsed, request, budgetMs);
+      analysed.catch(() => undefined);
+      await storeReady(db, job, this.workerId, parsed.stored, analysed);
       // A setup changed while this run used the old one: its own request was folded into this job, so run again.
       const now = await findCaptureRow(db, capture.id);
       if (now && JSON.stringify(await runSetupOf(this.ctx.db, now)) !== JSON.stringify(setup) && (await enqueue(db, capture.id, 'reanalyse'))) this.nudge();
-      if (process.env.CRESTLINE_TRACE) console.log(`capture ${capture.id}: read and analysed in ${(t1 - t0).toFixed(0)} ms, stored in ${(performance.now() - t1).toFixed(0)} ms`);
+      if (process.env.CRESTLINE_TRACE) console.log(`capture ${capture.id}: read in ${(t1 - t0).toFixed(0)} ms, then analysed and stored in ${(performance.now() - t1).toFixed(0)} ms`);
       this.compressLater(capture.id);
     } catch (err) {
       if (!this.running) return await this.giveBack(job);

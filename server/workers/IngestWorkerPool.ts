@@ -1,7 +1,7 @@
 import { ENGINE_VERSION } from '../../shared/analysis';
 import { Worker } from 'node:worker_threads';
 import type { ValidSpanResult } from '../../shared/analysis';
-import type { AnalyseRequest, IngestedChannel, IngestRequest, IngestResult, ParsedFile, SpanFiguresRequest } from './ingestTask';
+import type { AnalyseRequest, IngestedChannel, IngestRequest, IngestResult, ParsedFile, ReadCapture, SpanFiguresRequest } from './ingestTask';
 import type { IngestReply, IngestTask } from './ingestWorker';
 import type { StreamMessage, StreamOpenOptions, StreamParseRequest, StreamProgress } from './uploadReading';
 
@@ -22,7 +22,7 @@ export interface UploadStream {
   push(chunk: Uint8Array): boolean;
   /** Forgets the reading (the upload failed, was a duplicate, or took too long to arrive). */
   drop(): void;
-  parse(request: Omit<StreamParseRequest, 'stream'>, budgetMs: number): Promise<ParsedFile>;
+  parse(request: Omit<StreamParseRequest, 'stream'>, budgetMs: number): Promise<ReadCapture>;
 }
 
 /** An upload arriving faster than its worker reads it may run this far ahead; then the reading is dropped. */
@@ -159,19 +159,24 @@ export class IngestWorkerPool {
       },
       parse: (request, budgetMs) => {
         this.consumed.delete(stream);
-        return this.run<ParsedFile>({ kind: 'streamParse', request: { ...request, stream } }, budgetMs, [], pooled);
+        return this.run<ReadCapture>({ kind: 'streamParse', request: { ...request, stream } }, budgetMs, [], pooled);
       },
     };
   }
 
   /**
-   * Reads a capture file (or finishes the reading of its upload, `stream`), then analyses and packs its
-   * channels in parallel, each task within `budgetMs`.
+   * Reads a capture file, or finishes the reading of its upload (`stream`), within `budgetMs`: the
+   * samples in Float64 for the analysis, and already packed as stored (Float32 chunks), so that storing
+   * them can start while the channels are analysed.
    */
-  async ingest(request: IngestRequest, budgetMs: number, stream?: UploadStream): Promise<IngestResult> {
-    const parsed = stream
-      ? await stream.parse({ sampleRateHint: request.sampleRateHint, channelSetup: request.channelSetup, systems: request.systems }, budgetMs)
-      : await this.run<ParsedFile>({ kind: 'parse', request }, budgetMs);
+  read(request: IngestRequest, budgetMs: number, stream?: UploadStream): Promise<ReadCapture> {
+    return stream
+      ? stream.parse({ sampleRateHint: request.sampleRateHint, channelSetup: request.channelSetup, systems: request.systems }, budgetMs)
+      : this.run<ReadCapture>({ kind: 'parse', request }, budgetMs);
+  }
+
+  /** Analyses a read capture's channels in parallel, each task within `budgetMs`. Takes over their samples. */
+  async analyse(parsed: ParsedFile, request: Pick<IngestRequest, 'declared'>, budgetMs: number): Promise<IngestResult> {
     const channels = await Promise.all(
       parsed.channels.map((channel) => {
         const analyse: AnalyseRequest = { channel, sampleRate: parsed.sampleRate, t0: parsed.t0, declared: request.declared ?? null };

@@ -38,7 +38,6 @@ export interface IngestedChannel {
   suggestions: AnomalySuggestion[];
   /** Dips, swells and interruptions of a voltage channel, or null. */
   voltageEvents: Omit<ChannelVoltageEvents, 'channel'> | null;
-  chunks: Buffer[];
   overviews: { bucketSize: number; data: Buffer }[];
 }
 
@@ -141,14 +140,16 @@ export interface AnalyseRequest {
   declared?: Declared;
 }
 
-/** Analyses one channel, looks for anomalies and packs its samples for storage. Runs in a worker thread. */
+/** Analyses one channel, looks for anomalies and builds its overview pyramid. Runs in a worker thread. */
 export function analyseChannel(req: AnalyseRequest): IngestedChannel {
   const t0 = performance.now();
   const c = req.channel;
   // One clipping search serves the analysis warnings and the anomaly finder (about 10 ms per 1 M samples).
   let min = Infinity;
   let max = -Infinity;
-  for (const v of c.samples) {
+  // Indexed, not for…of: 1–2 ms instead of about 9 ms on 1 M samples here.
+  for (let i = 0; i < c.samples.length; i++) {
+    const v = c.samples[i];
     if (v < min) min = v;
     if (v > max) max = v;
   }
@@ -163,7 +164,6 @@ export function analyseChannel(req: AnalyseRequest): IngestedChannel {
     analysis: result.analysis,
     suggestions: [...findAnomalies(c.samples, req.sampleRate, req.t0, result.analysis.frequency, { clipping }), ...(events?.suggestions ?? [])],
     voltageEvents: events?.found ?? null,
-    chunks: float32Chunks(c.samples),
     overviews: overviewPyramid(c.samples).map((l) => ({ bucketSize: l.bucketSize, data: Buffer.from(l.minMax.buffer) })),
   };
   if (process.env.CRESTLINE_TRACE) console.log(`  channel ${c.name}: analysis and packing ${(performance.now() - t0).toFixed(0)} ms`);
@@ -180,4 +180,12 @@ export interface SpanFiguresRequest {
 /** The engine's figures of each channel over a span, under its valid-span rules (no splicing across gaps). */
 export function spanFigures(req: SpanFiguresRequest): ValidSpanResult[] {
   return req.channels.map((samples) => analyzeValidSpan(Float64Array.from(samples), req.sampleRate, { t0: req.t0 }));
+}
+
+/** A read capture, with each channel's samples also packed as stored (Float32 chunks). */
+export type ReadCapture = ParsedFile & { stored: Buffer[][] };
+
+/** Packs each channel's samples as they are stored, beside the Float64 ones the analysis takes. */
+export function withStoredSamples(parsed: ParsedFile): ReadCapture {
+  return { ...parsed, stored: parsed.channels.map((c) => float32Chunks(c.samples)) };
 }

@@ -1,7 +1,7 @@
 import { parentPort } from 'node:worker_threads';
 import { ComtradeError } from '../../shared/comtrade';
 import { CsvError } from '../../shared/csv';
-import { analyseChannel, parseFile, spanFigures, type AnalyseRequest, type IngestRequest, type SpanFiguresRequest } from './ingestTask';
+import { analyseChannel, parseFile, spanFigures, withStoredSamples, type AnalyseRequest, type IngestRequest, type SpanFiguresRequest } from './ingestTask';
 import { UploadStreams, type StreamMessage, type StreamParseRequest } from './uploadReading';
 
 export type IngestTask =
@@ -20,16 +20,16 @@ parentPort!.on('message', (message: { id: number; task: IngestTask } | StreamMes
     let result: unknown;
     let transfer: ArrayBufferLike[];
     if (task.kind === 'parse' || task.kind === 'streamParse') {
-      const parsed = task.kind === 'parse' ? parseFile(task.request) : streams.parse(task.request);
+      const parsed = withStoredSamples(task.kind === 'parse' ? parseFile(task.request) : streams.parse(task.request));
       result = parsed;
-      transfer = parsed.channels.map((c) => c.samples.buffer);
+      transfer = [...parsed.channels.map((c) => c.samples.buffer), ...parsed.stored!.flat().map((b) => b.buffer)];
     } else if (task.kind === 'figures') {
       result = spanFigures(task.request);
       transfer = [];
     } else {
       const channel = analyseChannel(task.request);
       result = channel;
-      transfer = [...channel.chunks.map((b) => b.buffer), ...channel.overviews.map((o) => o.data.buffer)];
+      transfer = channel.overviews.map((o) => o.data.buffer);
     }
     // Samples and packed chunks move to the main thread rather than being copied.
     parentPort!.postMessage({ id, ok: true, result } satisfies IngestReply, [...new Set(transfer)] as ArrayBuffer[]);

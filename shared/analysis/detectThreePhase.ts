@@ -13,6 +13,9 @@ export interface ChannelForDetection {
 export type DetectedSystem = SystemSpec & { detectedBy: 'names' | 'angles' };
 
 const VOLTAGE_UNITS = new Set(['V', 'mV', 'kV']);
+
+/** Whether channels of these units could hold a three-phase set at all: it takes three voltages. */
+export const mayHoldThreePhase = (units: string[]) => units.filter((u) => VOLTAGE_UNITS.has(u)).length >= 3;
 const CURRENT_UNITS = new Set(['A', 'mA', 'kA']);
 /** Fundamentals of a set may stray this far from 120° apart (an unbalanced or faulted supply still counts). */
 const ANGLE_TOLERANCE_DEG = 20;

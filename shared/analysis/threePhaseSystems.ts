@@ -1,6 +1,6 @@
 import type { SystemSpec, ThreePhaseSystem } from '../schemas/threePhase';
 import { analyzeThreePhase, fundamentalPhasor } from './analyzeThreePhase';
-import { detectThreePhase } from './detectThreePhase';
+import { detectThreePhase, mayHoldThreePhase } from './detectThreePhase';
 import { estimateFrequency } from './frequency';
 import { abs, argDeg } from './phasor';
 import type { Samples } from './samples';
@@ -54,6 +54,9 @@ export function threePhaseSystems(channels: NamedChannel[], sampleRate: number, 
   if (stated) {
     sets = stated.filter((s) => [...s.voltageChannels, ...(s.currentChannels ?? [])].every((i) => i < channels.length)).map((s) => ({ ...s, detectedBy: 'user' as const }));
   } else {
+    // Most captures have one or two voltages: no set to find, and no fundamental to estimate (35–100 ms
+    // on a 1 M-sample channel).
+    if (!mayHoldThreePhase(channels.map((c) => c.unit))) return [];
     const fundamentals = referenceFundamentals(channels, sampleRate);
     if (!fundamentals) return [];
     sets = detectThreePhase(channels.map((c, i) => ({ name: c.name, unit: c.unit, fundamental: fundamentals[i] })));
