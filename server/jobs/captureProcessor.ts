@@ -111,6 +111,7 @@ export class CaptureProcessor {
       this.workerId,
       stream,
       (job) => this.inBackground(this.process(job, slot, stream).catch((err) => console.error('capture processing:', err)).finally(release)),
+      (job) => this.inBackground(this.giveBack(job).then(() => this.nudge(), (err) => console.error('capture processing:', err))),
       () => release(),
     );
     const release = () => {

@@ -2,8 +2,10 @@ import type { UploadStream } from '../workers/IngestWorkerPool';
 import type { ClaimedJob } from './jobQueue';
 
 /**
- * An upload is read only this long while it arrives. A slower one is dropped (it is read from disk
- * once stored, as any queued capture), so a slow or stalled client never holds a processing slot.
+ * A slot is kept for an upload only this long, from its first byte until its capture is stored. A
+ * slower one is dropped (it is read from disk once stored, as any queued capture), so a slow or
+ * stalled client, even one that sends the file and then trickles the rest of the form, never holds a
+ * processing slot.
  * Reading beside the upload pays on a fast link: a 27 MB file arrives over loopback in about 0.3 s and
  * takes about as long to read; over a slow link the reading after it is small beside the transfer.
  */
@@ -26,6 +28,8 @@ export class EarlyReading {
     private readonly workerId: string,
     readonly stream: UploadStream,
     private readonly onAdopt: (job: ClaimedJob, reading: EarlyReading) => void,
+    /** For a job inserted claimed whose reading was dropped meanwhile (the time ran out): it goes back to the queue. */
+    private readonly onOrphan: (job: ClaimedJob) => void,
     private readonly release: () => void,
   ) {
     this.timer = setTimeout(() => this.drop(), EARLY_READ_MAX_MS);
@@ -42,10 +46,9 @@ export class EarlyReading {
     if (this.current === 'reading' && !this.stream.push(chunk)) this.drop();
   }
 
-  /** The whole file has arrived: the time limit no longer applies (storing it takes a few queries). */
+  /** The whole file has arrived; the rest of the form and the storing of the capture follow. */
   arrived(): void {
     if (this.current !== 'reading') return;
-    clearTimeout(this.timer);
     this.current = 'arrived';
   }
 
@@ -54,9 +57,13 @@ export class EarlyReading {
     return this.current === 'arrived' ? this.workerId : null;
   }
 
-  /** The capture is stored and its job claimed by `claimant()`: process it from this reading. */
+  /**
+   * The capture is stored and its job claimed by `claimant()`: process it from this reading, or, if the
+   * reading was dropped after that answer (its time ran out during the storing), give the job back.
+   */
   adopt(job: ClaimedJob): void {
-    if (this.current !== 'arrived') throw new Error('only a reading whose upload arrived can be adopted');
+    if (this.current !== 'arrived') return this.onOrphan(job);
+    clearTimeout(this.timer);
     this.current = 'adopted';
     this.onAdopt(job, this);
   }

@@ -5,13 +5,13 @@ import type { UploadStream } from '../../server/workers/IngestWorkerPool';
 /** The rules that keep an upload's reading from holding a processing slot longer than it pays. */
 function reading(accepts = () => true) {
   const pushed: number[] = [];
-  const calls = { dropped: 0, released: 0, adopted: 0 };
+  const calls = { dropped: 0, released: 0, adopted: 0, orphaned: 0 };
   const stream: UploadStream = {
     push: (c) => (accepts() ? (pushed.push(c.length), true) : false),
     drop: () => void calls.dropped++,
     parse: () => Promise.reject(new Error('not used')),
   };
-  const r = new EarlyReading('worker-1', stream, () => void calls.adopted++, () => void calls.released++);
+  const r = new EarlyReading('worker-1', stream, () => void calls.adopted++, () => void calls.orphaned++, () => void calls.released++);
   return { r, pushed, calls };
 }
 
@@ -29,15 +29,24 @@ describe('the reading of an upload as it arrives', () => {
     expect(r.claimant()).toBeNull();
   });
 
-  it('once arrived, names its worker as the claimant and is no longer timed', () => {
+  it('once arrived, names its worker as the claimant; adopted, it is no longer timed', () => {
     const { r, calls } = reading();
     r.arrived();
-    vi.advanceTimersByTime(EARLY_READ_MAX_MS * 2);
     expect(r.claimant()).toBe('worker-1');
     r.adopt({ id: 1, captureId: 2, kind: 'ingest', attempts: 1 });
+    vi.advanceTimersByTime(EARLY_READ_MAX_MS * 2);
     r.drop();
     expect(r.state).toBe('adopted');
-    expect(calls).toMatchObject({ adopted: 1, dropped: 0, released: 0 });
+    expect(calls).toMatchObject({ adopted: 1, dropped: 0, released: 0, orphaned: 0 });
+  });
+
+  it('keeps timing after the file has arrived: a sender that trickles the rest of the form loses the slot', () => {
+    const { r, calls } = reading();
+    r.arrived();
+    vi.advanceTimersByTime(EARLY_READ_MAX_MS + 1);
+    expect(r.state).toBe('dropped');
+    expect(r.claimant()).toBeNull();
+    expect(calls).toMatchObject({ dropped: 1, released: 1 });
   });
 
   it('gives up when its worker falls too far behind, and takes nothing after', () => {
@@ -49,9 +58,13 @@ describe('the reading of an upload as it arrives', () => {
     expect(calls.released).toBe(1);
   });
 
-  it('cannot be adopted before its upload has arrived', () => {
-    const { r } = reading();
-    expect(() => r.adopt({ id: 1, captureId: 2, kind: 'ingest', attempts: 1 })).toThrow();
-    expect(r.claimant()).toBeNull();
+  it('gives back a job inserted claimed if the reading was dropped meanwhile, rather than leave it unprocessed', () => {
+    const { r, calls } = reading();
+    r.arrived();
+    expect(r.claimant()).toBe('worker-1');
+    // the time runs out while the capture is being stored
+    vi.advanceTimersByTime(EARLY_READ_MAX_MS + 1);
+    r.adopt({ id: 1, captureId: 2, kind: 'ingest', attempts: 1 });
+    expect(calls).toMatchObject({ adopted: 0, orphaned: 1 });
   });
 });
