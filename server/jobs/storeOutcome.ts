@@ -1,5 +1,6 @@
 import { and, eq, getTableName, sql } from 'drizzle-orm';
 import { blobTransaction } from '../db/blobTransaction';
+import { retryOnDeadlock } from '../db/retryOnDeadlock';
 import type { Db, DbOrTx } from '../db/client';
 import { annotations, captures, channels, jobs, overviews, sampleChunks } from '../db/schema';
 import type { IngestResult } from '../workers/ingestTask';
@@ -25,18 +26,6 @@ async function clearStoredSamples(tx: DbOrTx, captureId: number): Promise<void> 
   await tx.delete(annotations).where(and(eq(annotations.captureId, captureId), eq(annotations.source, 'finder'), eq(annotations.state, 'suggested')));
 }
 
-/** InnoDB may pick a transaction as a deadlock victim; it is then safe to run it again. */
-async function retryOnDeadlock<T>(fn: () => Promise<T>, tries = 4): Promise<T> {
-  for (let i = 1; ; i++) {
-    try {
-      return await fn();
-    } catch (err) {
-      const code = (err as { cause?: { errno?: number } }).cause?.errno ?? (err as { errno?: number }).errno;
-      if (code !== 1213 || i >= tries) throw err;
-    }
-  }
-}
-
 /**
  * Stores a finished run in one transaction: samples, channels, pyramid, finder suggestions, and the
  * capture marked ready, on condition that the job still belongs to this worker (else all is rolled back).
@@ -47,6 +36,11 @@ async function retryOnDeadlock<T>(fn: () => Promise<T>, tries = 4): Promise<T> {
 export function storeReady(db: Db, job: ClaimedJob, workerId: string, stored: Uint8Array[][], analysed: Promise<IngestResult>): Promise<void> {
   return retryOnDeadlock(() =>
     blobTransaction(db, async (tx, writeBlobs) => {
+      // The capture row is locked first: the inserts below would take it shared (foreign keys) and the
+      // final update exclusive, and a user's change or delete of the capture in between would then end
+      // in a deadlock. Locked first, such a change waits for this run's store instead (about the
+      // analysis time: 0.2 s for a 1 M-sample channel, 3 s for 10 M).
+      await tx.select({ id: captures.id }).from(captures).where(eq(captures.id, job.captureId)).for('update');
       await clearStoredSamples(tx, job.captureId);
       for (const [idx, chunks] of stored.entries()) {
         let start = 0;

@@ -6,6 +6,7 @@ import type { User } from '../../shared/schemas/user';
 import type { AppContext } from '../context';
 import { channelAnalyses, powerQualityOf, findCaptureBySha, findCaptureDetail, findCaptureRow, listCaptures } from '../db/captureRepository';
 import { findProject } from '../db/projectRepository';
+import { retryOnDeadlock } from '../db/retryOnDeadlock';
 import { captures } from '../db/schema';
 import { AppError, forbidden, notFound } from '../errors';
 import type { EarlyReading } from '../jobs/earlyReading';
@@ -114,10 +115,14 @@ export async function ownedCapture(ctx: AppContext, user: User, id: number) {
   return row;
 }
 
-/** Deletes the capture (samples, marks and jobs go with it by cascade), then its files, once that committed. */
+/**
+ * Deletes the capture (samples, marks and jobs go with it by cascade), then its files, once that
+ * committed. A delete during the storing of a run can meet it in a deadlock (the run's inserts hold
+ * the capture row shared, then it updates the row); the delete is then simply run again.
+ */
 export async function deleteCapture(ctx: AppContext, user: User, id: number): Promise<void> {
   await ownedCapture(ctx, user, id);
-  await ctx.db.delete(captures).where(eq(captures.id, id));
+  await retryOnDeadlock(() => ctx.db.delete(captures).where(eq(captures.id, id)));
   await removeCaptureFiles(ctx, id);
 }
 

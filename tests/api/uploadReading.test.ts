@@ -133,6 +133,22 @@ describe('reading an upload as it arrives', () => {
     await untilSlotFree();
   });
 
+  it('lets the capture be renamed, then deleted, while its samples are being stored', async () => {
+    await untilSlotFree();
+    const res = await uploadText(eng, 'renamed-then-deleted.csv', longTwoChannelCsv(300_000));
+    expect(res.status).toBe(202);
+    const statuses: number[] = [];
+    for (let i = 0; i < 8; i++) {
+      statuses.push((await eng.patch(`/api/captures/${res.body.id}`).send({ name: `Run ${i}` })).status);
+      await new Promise((r) => setTimeout(r, 25));
+    }
+    statuses.push((await eng.delete(`/api/captures/${res.body.id}`)).status);
+    // Never a 500 (a deadlock with the run's store): each change waits for it or comes before it.
+    expect(statuses).toEqual([200, 200, 200, 200, 200, 200, 200, 200, 204]);
+    expect((await eng.get(`/api/captures/${res.body.id}`)).status).toBe(404);
+    await untilSlotFree();
+  });
+
   it('keeps one slot for the queue: only one upload at a time is read as it arrives', async () => {
     await untilSlotFree();
     const a = app.processor.readUpload(1);
