@@ -26,8 +26,8 @@ export class EarlyReading {
 
   constructor(
     private readonly workerId: string,
-    readonly stream: UploadStream,
-    private readonly onAdopt: (job: ClaimedJob, reading: EarlyReading) => void,
+    private readonly stream: UploadStream,
+    private readonly onAdopt: (job: ClaimedJob) => void,
     /** For a job inserted claimed whose reading was dropped meanwhile (the time ran out): it goes back to the queue. */
     private readonly onOrphan: (job: ClaimedJob) => void,
     private readonly release: () => void,
@@ -65,7 +65,7 @@ export class EarlyReading {
     if (this.current !== 'arrived') return this.onOrphan(job);
     clearTimeout(this.timer);
     this.current = 'adopted';
-    this.onAdopt(job, this);
+    this.onAdopt(job);
   }
 
   /** Forgets the reading and frees the slot, unless a job took it over. Safe to call more than once. */

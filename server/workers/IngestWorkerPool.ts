@@ -131,7 +131,7 @@ export class IngestWorkerPool {
 
   /**
    * Opens a CSV reading on one worker, fed with the bytes of an upload as they arrive, so that the
-   * file is read while it is still being sent: `ingest` then finishes it instead of reading the file.
+   * file is read while it is still being sent: `read` then finishes it instead of reading the file.
    */
   openStream(options: StreamOpenOptions): UploadStream {
     const pooled = this.leastBusy();

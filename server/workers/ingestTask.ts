@@ -1,5 +1,5 @@
 import { closeSync, openSync, readSync } from 'node:fs';
-import { analyzeValidSpan, channelVoltageEvents, findAnomalies, findClipping, threePhaseSystems, type AnomalySuggestion, type ValidSpanResult } from '../../shared/analysis';
+import { analyzeValidSpan, channelVoltageEvents, findAnomalies, findClipping, sampleRange, threePhaseSystems, type AnomalySuggestion, type ValidSpanResult } from '../../shared/analysis';
 import { CsvError, type ReadLimits } from '../../shared/csv';
 import { CaptureByteStream, type CaptureBytesData } from '../../shared/csv/readCaptureBytes';
 import type { ChannelAnalysis } from '../../shared/schemas/analysis';
@@ -145,14 +145,7 @@ export function analyseChannel(req: AnalyseRequest): IngestedChannel {
   const t0 = performance.now();
   const c = req.channel;
   // One clipping search serves the analysis warnings and the anomaly finder (about 10 ms per 1 M samples).
-  let min = Infinity;
-  let max = -Infinity;
-  // Indexed, not for…of: 1–2 ms instead of about 9 ms on 1 M samples here.
-  for (let i = 0; i < c.samples.length; i++) {
-    const v = c.samples[i];
-    if (v < min) min = v;
-    if (v > max) max = v;
-  }
+  const { min, max } = sampleRange(c.samples);
   const clipping = findClipping(c.samples, 0, c.samples.length, min, max);
   const result = analyzeValidSpan(c.samples, req.sampleRate, { t0: req.t0, clipping });
   if (!result.ok) throw new CsvError(`Channel ${c.name}: ${result.reason}`, c.firstInvalidLine ?? undefined);

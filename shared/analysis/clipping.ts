@@ -8,6 +8,21 @@ export interface ClippingFinding {
 }
 
 /**
+ * The lowest and highest sample (NaN skipped), the rails findClipping looks at. An indexed loop, not
+ * for…of: 1–2 ms instead of about 9 ms on 1 M samples here.
+ */
+export function sampleRange(x: Samples): { min: number; max: number } {
+  let min = Infinity;
+  let max = -Infinity;
+  for (let i = 0; i < x.length; i++) {
+    const v = x[i];
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  return { min, max };
+}
+
+/**
  * Flat tops at the record's extremes that look like an instrument's rail rather than the waveform.
  *
  * A rail is reported when (1) at least three samples sit exactly on it in a run of three or more,

@@ -1,4 +1,4 @@
-import { findClipping, type ClippingFinding } from './clipping';
+import { findClipping, sampleRange, type ClippingFinding } from './clipping';
 import { risingZeroCrossings } from './frequency';
 import type { Samples } from './samples';
 
@@ -64,14 +64,7 @@ export function findAnomalies(x: Samples, sampleRate: number, t0: number, freque
   const freqTol = (options.frequencyPercent ?? 1) / 100;
   const t = (i: number) => t0 + i / sampleRate;
   const out: AnomalySuggestion[] = [];
-  let min = Infinity;
-  let max = -Infinity;
-  // Indexed, not for…of: 1–2 ms instead of about 9 ms on 1 M samples here.
-  for (let i = 0; i < x.length; i++) {
-    const v = x[i];
-    if (v < min) min = v;
-    if (v > max) max = v;
-  }
+  const { min, max } = sampleRange(x);
   const span = max - min;
 
   // Clipping: runs of three or more samples on a rail that findClipping judged to be clipped.

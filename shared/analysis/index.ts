@@ -1,6 +1,6 @@
 export { analyzeChannel, type AnalysisSettings } from './analyzeChannel';
 export { analyzeValidSpan, type ValidSpanResult } from './analyzeValidSpan';
-export { findClipping, type ClippingFinding } from './clipping';
+export { findClipping, sampleRange, type ClippingFinding } from './clipping';
 export { DftPlan, dftBins, dftPlan, dtftAt } from './dft';
 export { ENGINE_VERSION } from './engineVersion';
 export { estimateFrequency, risingZeroCrossings, type Crossings, type FrequencyEstimate } from './frequency';
