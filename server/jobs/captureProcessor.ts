@@ -205,10 +205,9 @@ export class CaptureProcessor {
       const parsed = await slot.read(request, budgetMs, stream);
       const t1 = performance.now();
       if (!this.running) return await this.giveBack(job);
-      // The samples are stored while the channels are analysed; the run commits once both are done.
-      const analysed = slot.analyse(parsed, request, budgetMs);
-      analysed.catch(() => undefined);
-      await storeReady(db, job, this.workerId, parsed.stored, analysed);
+      const result = await slot.analyse(parsed, request, budgetMs);
+      if (!this.running) return await this.giveBack(job);
+      await storeReady(db, job, this.workerId, parsed.stored, result);
       // A setup changed while this run used the old one: its own request was folded into this job, so run again.
       const now = await findCaptureRow(db, capture.id);
       if (now && JSON.stringify(await runSetupOf(this.ctx.db, now)) !== JSON.stringify(setup) && (await enqueue(db, capture.id, 'reanalyse'))) this.nudge();

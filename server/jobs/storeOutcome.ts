@@ -29,17 +29,17 @@ async function clearStoredSamples(tx: DbOrTx, captureId: number): Promise<void> 
 /**
  * Stores a finished run in one transaction: samples, channels, pyramid, finder suggestions, and the
  * capture marked ready, on condition that the job still belongs to this worker (else all is rolled back).
- * The samples (`stored`: Float32 chunks per channel) go in while the channels are still being analysed
- * (`analysed`): on the 1 M-row, 2-channel bench file that hides about 60 ms of the 100 ms the store
- * took after the analysis. A failed analysis rolls the samples back with everything else.
+ * `stored` holds each channel's samples as Float32 chunks, packed by the worker that read the file.
+ * The transaction starts only once the analysis is done: opened beside it (which hid about 60 ms on the
+ * 1 M-row bench file), it held the capture row for as long as the analysis ran, up to its time budget,
+ * and a delete or a database reset waited on it past MariaDB's 50 s lock timeout.
  */
-export function storeReady(db: Db, job: ClaimedJob, workerId: string, stored: Uint8Array[][], analysed: Promise<IngestResult>): Promise<void> {
+export function storeReady(db: Db, job: ClaimedJob, workerId: string, stored: Uint8Array[][], r: IngestResult): Promise<void> {
   return retryOnDeadlock(() =>
     blobTransaction(db, async (tx, writeBlobs) => {
       // The capture row is locked first: the inserts below would take it shared (foreign keys) and the
       // final update exclusive, and a user's change or delete of the capture in between would then end
-      // in a deadlock. Locked first, such a change waits for this run's store instead (about the
-      // analysis time: 0.2 s for a 1 M-sample channel, 3 s for 10 M).
+      // in a deadlock. Locked first, such a change waits for this store instead (0.1 s for 1 M samples).
       await tx.select({ id: captures.id }).from(captures).where(eq(captures.id, job.captureId)).for('update');
       await clearStoredSamples(tx, job.captureId);
       for (const [idx, chunks] of stored.entries()) {
@@ -50,7 +50,6 @@ export function storeReady(db: Db, job: ClaimedJob, workerId: string, stored: Ui
           start += buf.length / 4;
         }
       }
-      const r = await analysed;
       const [done] = await tx.update(jobs).set({ status: 'done', finishedAt: sql`NOW()` }).where(ownedBy(job.id, workerId));
       if (done.affectedRows !== 1) throw new Error(`job ${job.id} was taken over by another worker`);
       for (const [idx, c] of r.channels.entries()) {

@@ -166,8 +166,8 @@ export class IngestWorkerPool {
 
   /**
    * Reads a capture file, or finishes the reading of its upload (`stream`), within `budgetMs`: the
-   * samples in Float64 for the analysis, and already packed as stored (Float32 chunks), so that storing
-   * them can start while the channels are analysed.
+   * samples in Float64 for the analysis (which takes them over), and packed as stored (Float32 chunks),
+   * which stay here for the store.
    */
   read(request: IngestRequest, budgetMs: number, stream?: UploadStream): Promise<ReadCapture> {
     return stream
