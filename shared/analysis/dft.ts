@@ -210,3 +210,36 @@ export function dftBins(x: Samples, start: number, count: number, frequencies: n
   }
   return { re, im };
 }
+
+/**
+ * DFT values at integer bins k of x[start .. start+n): X[k] = Σ x[start+m]·e^(−j2πkm/n), from a table of
+ * the n twiddle factors, each a correctly rounded cos/sin, so the rounding stays near ε·√n at any bin
+ * (Goertzel's grows as 1/sin(2πk/n) at low bins: a pure sine's harmonics then read about 1e-12 of the
+ * fundamental instead of 1e-15). About twice Goertzel's work per sample and bin, plus n cos/sin pairs:
+ * meant for records of up to a few ten thousand samples, such as one period summed over many.
+ */
+export function dftIntegerBins(x: Samples, start: number, n: number, bins: number[]): { re: Float64Array; im: Float64Array } {
+  const cos = new Float64Array(n);
+  const sin = new Float64Array(n);
+  for (let m = 0; m < n; m++) {
+    cos[m] = Math.cos((2 * Math.PI * m) / n);
+    sin[m] = Math.sin((2 * Math.PI * m) / n);
+  }
+  const re = new Float64Array(bins.length);
+  const im = new Float64Array(bins.length);
+  for (const [b, bin] of bins.entries()) {
+    const k = ((bin % n) + n) % n;
+    let accRe = 0;
+    let accIm = 0;
+    for (let m = 0, i = 0; m < n; m++) {
+      const v = x[start + m];
+      accRe += v * cos[i];
+      accIm -= v * sin[i];
+      i += k;
+      if (i >= n) i -= n;
+    }
+    re[b] = accRe;
+    im[b] = accIm;
+  }
+  return { re, im };
+}

@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyzeChannel, harmonics } from '../../../shared/analysis';
 import { fourierSeries, sampled, shapes } from '../../helpers/signals';
@@ -62,17 +63,53 @@ describe('harmonics', () => {
     expect(r.nyquistOrder).toBe(4);
   });
 
-  it('gives the same result on the full-transform path and the direct-bin path', () => {
+  it('gives the same result on the twiddle-table, full-transform and direct-bin paths', () => {
     const shape = fourierSeries([{ order: 1, peak: 1 }, { order: 7, peak: 0.2, phaseRad: 0.3 }]);
-    const small = sampled(shape, 64, 16); // 1024 points: one fft.js transform
-    const big = sampled(shape, 20000, 60); // 1.2 M points: direct bins
-    const a = harmonics(small, 0, small.length, 16, 3200);
-    const b = harmonics(big, 0, big.length, 60, 1e6, 31);
-    expect(a.harmonics[6].rms).toBeCloseTo(0.2 / Math.SQRT2, 12);
-    expect(b.harmonics[6].rms).toBeCloseTo(0.2 / Math.SQRT2, 10);
-    // sin(θ + φ) = cos(θ + φ − 90°), sampled from half a step in: + 7·180°/perCycle
-    const phase = (perCycle: number) => (0.3 * 180) / Math.PI - 90 + (7 * 180) / perCycle;
-    expect(a.harmonics[6].phaseDeg).toBeCloseTo(phase(64), 9);
-    expect(b.harmonics[6].phaseDeg).toBeCloseTo(phase(20000), 7);
+    const paths = [
+      { perCycle: 64, cycles: 16 }, // 1024 points: a twiddle table
+      { perCycle: 20000, cycles: 60 }, // 1.2 M points: summed to one period of 20 000, then a table
+      { perCycle: 2 ** 17, cycles: 1 }, // one period of 2^17 points: one fft.js transform
+      { perCycle: 90001 / 9, cycles: 9 }, // 90 001 points, gcd(9, 90 001) = 1: direct bins
+    ];
+    for (const { perCycle, cycles } of paths) {
+      const x = sampled(shape, perCycle, cycles);
+      expect(x.length).toBe(Math.round(perCycle * cycles));
+      const r = harmonics(x, 0, x.length, cycles, 50 * perCycle, 31);
+      expect(r.harmonics[6].rms).toBeCloseTo(0.2 / Math.SQRT2, 10);
+      expect(r.harmonics[1].rms).toBeLessThan(1e-9);
+      // sin(θ + φ) = cos(θ + φ − 90°), sampled from half a step in: + 7·180°/perCycle
+      expect(r.harmonics[6].phaseDeg).toBeCloseTo((0.3 * 180) / Math.PI - 90 + (7 * 180) / perCycle, 7);
+    }
+  });
+
+  it('equals the DFT by its definition at bins h·cycles, whatever gcd(cycles, length) (X[k] = Σ x[n]·e^(−j2πkn/N))', () => {
+    // The whole-cycle windows of real records share factors with their cycle counts (1 M samples of 50
+    // cycles: 50) or none (997 of 3): both, and windows starting inside the record, must give the sums.
+    const direct = (x: number[], start: number, n: number, k: number) => {
+      let re = 0;
+      let im = 0;
+      for (let i = 0; i < n; i++) {
+        re += x[start + i] * Math.cos((2 * Math.PI * k * i) / n);
+        im -= x[start + i] * Math.sin((2 * Math.PI * k * i) / n);
+      }
+      return { re, im };
+    };
+    const window = fc
+      .record({ cycles: fc.integer({ min: 1, max: 24 }), perCycle: fc.integer({ min: 4, max: 90 }), extra: fc.integer({ min: 0, max: 40 }), start: fc.integer({ min: 0, max: 30 }) })
+      .chain((w) => {
+        const count = w.cycles * w.perCycle + w.extra;
+        return fc.record({ w: fc.constant({ ...w, count }), x: fc.array(fc.double({ min: -1e3, max: 1e3, noNaN: true }), { minLength: w.start + count, maxLength: w.start + count }) });
+      });
+    fc.assert(
+      fc.property(window, ({ w, x }) => {
+        const r = harmonics(Float64Array.from(x), w.start, w.count, w.cycles, 1000, 50);
+        const scale = x.reduce((s, v) => s + Math.abs(v), 0) + 1;
+        for (const h of r.harmonics) {
+          const { re, im } = direct(x, w.start, w.count, h.order * w.cycles);
+          expect(Math.abs(h.rms - (Math.SQRT2 * Math.hypot(re, im)) / w.count)).toBeLessThan(1e-9 * scale);
+        }
+      }),
+      { numRuns: 300 },
+    );
   });
 });
