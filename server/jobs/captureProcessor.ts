@@ -13,7 +13,7 @@ import { maxSamples, taskBudgetMs } from './ingestLimits';
 import { claimJob, enqueue, heartbeat, MAX_ATTEMPTS, ownedBy, releaseJob, type ClaimedJob } from './jobQueue';
 import { unexpectedFailure } from './processingFailure';
 import { runSetupOf } from './runSetup';
-import { storeFailure, storeReady } from './storeOutcome';
+import { storeFailure, storeReady, storeSamples } from './storeOutcome';
 
 const POLL_MS = 500;
 /** How often waiting housekeeping looks whether the slots have gone quiet. */
@@ -205,9 +205,14 @@ export class CaptureProcessor {
       const parsed = await slot.read(request, budgetMs, stream);
       const t1 = performance.now();
       if (!this.running) return await this.giveBack(job);
-      const result = await slot.analyse(parsed, request, budgetMs);
+      // An ingest's samples are stored while its channels are analysed (storeSamples says why). Both are
+      // awaited before anything else: a failure must not clear samples still being written.
+      const early = job.kind === 'ingest' ? storeSamples(db, job, this.workerId, parsed.stored) : null;
+      const [analysed, samplesStored] = await Promise.allSettled([slot.analyse(parsed, request, budgetMs), early]);
+      if (analysed.status === 'rejected') throw analysed.reason;
+      if (samplesStored.status === 'rejected') throw samplesStored.reason;
       if (!this.running) return await this.giveBack(job);
-      await storeReady(db, job, this.workerId, parsed.stored, result);
+      await storeReady(db, job, this.workerId, early ? null : parsed.stored, analysed.value);
       // A setup changed while this run used the old one: its own request was folded into this job, so run again.
       const now = await findCaptureRow(db, capture.id);
       if (now && JSON.stringify(await runSetupOf(this.ctx.db, now)) !== JSON.stringify(setup) && (await enqueue(db, capture.id, 'reanalyse'))) this.nudge();

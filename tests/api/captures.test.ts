@@ -116,6 +116,17 @@ describe('bad input', () => {
     expect(a.status).toBe(409);
   });
 
+  it('a channel too broken to analyse fails the capture once it is read, and leaves none of its samples stored', async () => {
+    // The samples of an ingest are stored while its channels are analysed: a failed analysis must take them back.
+    const rows = ['Time (s),CH1 (V),CH2 (A)'];
+    for (let i = 0; i < 4000; i++) rows.push(`${(i / 10000).toFixed(5)},${Math.sin((2 * Math.PI * 50 * i) / 10000).toFixed(5)},${i % 2 ? '' : '0.5'}`);
+    const res = await uploadText(eng, 'half-empty.csv', rows.join('\n'), { projectId });
+    const c = await waitSettled(eng, res.body.id);
+    expect(c.status).toBe('failed');
+    expect(c.error.message).toMatch(/CH2.*empty or overrange/);
+    expect(await storedSamples(c.id)).toBe(0);
+  });
+
   it('a file without a time base asks for the sample rate, then processes with it', async () => {
     const res = await uploadText(eng, 'logger.csv', 'CH1\n1\n2\n1\n0\n1\n2\n1\n0\n', { projectId });
     const failed = await waitSettled(eng, res.body.id);
