@@ -86,14 +86,30 @@ export async function findCaptureSummary(db: Db, id: number): Promise<CaptureSum
 /** A capture with its channels: the capture row (with its summary) in one query, the channels in another. */
 export async function findCaptureDetail(db: Db, id: number): Promise<CaptureDetail | null> {
   const [row] = await db
-    .select({ ...summaryColumns, t0: captures.t0, sha256: captures.sha256, detected: captures.detected, metadata: captures.metadata, engineVersion: captures.engineVersion, readyAt: captures.readyAt, channelSetup: captures.channelSetup, systems: captures.systems, declaredVoltage: captures.declaredVoltage, format: captures.format, dataName: captures.dataName, comtrade: captures.comtrade })
+    .select({
+      ...summaryColumns,
+      t0: captures.t0,
+      sha256: captures.sha256,
+      detected: captures.detected,
+      metadata: captures.metadata,
+      engineVersion: captures.engineVersion,
+      readyAt: captures.readyAt,
+      channelSetup: captures.channelSetup,
+      systems: captures.systems,
+      declaredVoltage: captures.declaredVoltage,
+      format: captures.format,
+      dataName: captures.dataName,
+      comtrade: captures.comtrade,
+      reanalysing: sql<number>`EXISTS (SELECT 1 FROM ${jobs} WHERE ${jobs.captureId} = ${captures.id} AND ${jobs.kind} = 'reanalyse' AND ${jobs.status} IN ('queued', 'running'))`,
+    })
     .from(captures)
     .leftJoin(users, eq(users.id, captures.uploadedBy))
     .where(eq(captures.id, id));
   if (!row) return null;
-  const chans = await db.select().from(channels).where(eq(channels.captureId, id)).orderBy(asc(channels.idx));
+  // The detail is what a page polls while a capture is processed: two queries, and none of the channels'
+  // analyses (5–15 KB of JSON each), which GET /captures/:id/analysis serves.
+  const chans = await db.select({ idx: channels.idx, name: channels.name, unit: channels.unit, invalidCount: channels.invalidCount }).from(channels).where(eq(channels.captureId, id)).orderBy(asc(channels.idx));
   const parse = <T>(v: unknown): T => (typeof v === 'string' ? JSON.parse(v) : v) as T;
-  const [pending] = await db.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.captureId, id), eq(jobs.kind, 'reanalyse'), sql`${jobs.status} IN ('queued', 'running')`)).limit(1);
   return {
     ...toSummary(row),
     t0: row.t0,
@@ -106,7 +122,7 @@ export async function findCaptureDetail(db: Db, id: number): Promise<CaptureDeta
     channelSetup: parse(row.channelSetup) ?? [],
     systemsSpec: parse(row.systems) ?? null,
     declaredVoltage: row.declaredVoltage,
-    reanalysing: Boolean(pending),
+    reanalysing: Boolean(Number(row.reanalysing)),
     format: row.format,
     dataName: row.dataName,
     comtrade: parse(row.comtrade) ?? null,
