@@ -213,7 +213,7 @@ export function dftBins(x: Samples, start: number, count: number, frequencies: n
 
 /**
  * DFT values at integer bins k of x[start .. start+n): X[k] = Σ x[start+m]·e^(−j2πkm/n), from a table of
- * the n twiddle factors, each a correctly rounded cos/sin, so the rounding stays near ε·√n at any bin
+ * the n twiddle factors, each one Math.cos/sin call (within an ulp), so the rounding stays near ε·√n at any bin
  * (Goertzel's grows as 1/sin(2πk/n) at low bins: a pure sine's harmonics then read about 1e-12 of the
  * fundamental instead of 1e-15). About twice Goertzel's work per sample and bin, plus n cos/sin pairs:
  * meant for records of up to a few ten thousand samples, such as one period summed over many.
@@ -228,6 +228,7 @@ export function dftIntegerBins(x: Samples, start: number, n: number, bins: numbe
   const re = new Float64Array(bins.length);
   const im = new Float64Array(bins.length);
   for (const [b, bin] of bins.entries()) {
+    if (!Number.isInteger(bin)) throw new RangeError(`dftIntegerBins: bin ${bin} is not a whole number`);
     const k = ((bin % n) + n) % n;
     let accRe = 0;
     let accIm = 0;

@@ -54,15 +54,18 @@ export function harmonics(
     rms: (Math.SQRT2 * Math.hypot(re, im)) / count,
     phaseDeg: (Math.atan2(im, re) * 180) / Math.PI,
   });
-  const parts = greatestCommonDivisor(cycles, count);
+  if (top < 1) return { harmonics: out, ...distortion(out), nyquistOrder };
+  // Whole cycles on whole samples put every harmonic on a whole bin; otherwise only direct sums apply.
+  const whole = Number.isInteger(cycles) && Number.isInteger(count);
+  const parts = whole ? greatestCommonDivisor(cycles, count) : 1;
   const length = count / parts;
   const step = cycles / parts;
   const y = parts > 1 ? sumOfParts(x, start, length, parts) : x;
   const from = parts > 1 ? 0 : start;
-  if (length <= TABLE_LENGTH) {
+  if (whole && length <= TABLE_LENGTH) {
     const bins = dftIntegerBins(y, from, length, Array.from({ length: top }, (_, i) => (i + 1) * step));
     for (let h = 1; h <= top; h++) out.push(toHarmonic(h, bins.re[h - 1], bins.im[h - 1]));
-  } else if (top >= 1 && dftCost(length) < DIRECT_COST_PER_SAMPLE * top * length) {
+  } else if (whole && dftCost(length) < DIRECT_COST_PER_SAMPLE * top * length) {
     const re = new Float64Array(length);
     const im = new Float64Array(length);
     dftPlan(length).transform(y, from, re, im);

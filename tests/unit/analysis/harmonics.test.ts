@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { analyzeChannel, harmonics } from '../../../shared/analysis';
+import { analyzeChannel, dtftAt, harmonics } from '../../../shared/analysis';
 import { fourierSeries, sampled, shapes } from '../../helpers/signals';
 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
@@ -79,6 +79,16 @@ describe('harmonics', () => {
       expect(r.harmonics[1].rms).toBeLessThan(1e-9);
       // sin(θ + φ) = cos(θ + φ − 90°), sampled from half a step in: + 7·180°/perCycle
       expect(r.harmonics[6].phaseDeg).toBeCloseTo((0.3 * 180) / Math.PI - 90 + (7 * 180) / perCycle, 7);
+    }
+  });
+
+  it('takes a window of a fractional number of cycles by direct sums at those (fractional) bins', () => {
+    // X(f) = Σ x[n]·e^(−j2πfn) at f = h·cycles/count, as dtftAt sums it one bin at a time.
+    const x = sampled(fourierSeries([{ order: 1, peak: 1 }, { order: 3, peak: 0.1 }]), 400, 3);
+    const r = harmonics(x, 0, 1000, 2.5, 20000, 5);
+    for (const h of r.harmonics) {
+      const { re, im } = dtftAt(x, 0, 1000, (h.order * 2.5) / 1000);
+      expect(h.rms).toBeCloseTo((Math.SQRT2 * Math.hypot(re, im)) / 1000, 12);
     }
   });
 
