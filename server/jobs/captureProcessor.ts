@@ -32,7 +32,7 @@ const MAX_BACKOFF_MS = 10_000;
  * each capture is processed exactly once.
  */
 export class CaptureProcessor {
-  readonly workerId = `${hostname()}:${process.pid}:${randomBytes(3).toString('hex')}`;
+  readonly workerId = `${hostname().slice(0, 40)}:${process.pid}:${randomBytes(3).toString('hex')}`;
   /** One worker pool per slot: stopping a stuck file's worker never touches another file's task. */
   readonly slots: IngestWorkerPool[];
   private running = false;
@@ -185,14 +185,14 @@ export class CaptureProcessor {
     if (!capture) return;
     if (job.attempts > MAX_ATTEMPTS) {
       const message = unexpectedFailure(capture.id, `job ${job.id} was claimed ${job.attempts} times without finishing`, 'processing stopped without finishing several times');
-      await storeFailure(db, job, this.workerId, { code: 'internal', message });
+      await storeFailure(db, job, { code: 'internal', message });
       return;
     }
     // A re-analysis leaves the capture readable, with its current results, until the new ones are stored.
     if (job.kind === 'ingest') await db.update(captures).set({ status: 'processing' }).where(eq(captures.id, capture.id));
     // Four heartbeats per stale period, so a live worker is never taken for a dead one.
     const everyMs = Math.min(5000, (config.JOB_STALE_SECONDS * 1000) / 4);
-    const beat = setInterval(() => void heartbeat(db, job.id, this.workerId).catch(() => undefined), everyMs);
+    const beat = setInterval(() => void heartbeat(db, job).catch(() => undefined), everyMs);
     let readable: Awaited<ReturnType<typeof readableOriginal>> | null = null;
     try {
       const t0 = performance.now();
@@ -207,12 +207,12 @@ export class CaptureProcessor {
       if (!this.running) return await this.giveBack(job);
       // An ingest's samples are stored while its channels are analysed (storeSamples says why). Both are
       // awaited before anything else: a failure must not clear samples still being written.
-      const early = job.kind === 'ingest' ? storeSamples(db, job, this.workerId, parsed.stored) : null;
+      const early = job.kind === 'ingest' ? storeSamples(db, job, parsed.stored) : null;
       const [analysed, samplesStored] = await Promise.allSettled([slot.analyse(parsed, request, budgetMs), early]);
       if (analysed.status === 'rejected') throw analysed.reason;
       if (samplesStored.status === 'rejected') throw samplesStored.reason;
       if (!this.running) return await this.giveBack(job);
-      await storeReady(db, job, this.workerId, early ? null : parsed.stored, analysed.value);
+      await storeReady(db, job, early ? null : parsed.stored, analysed.value);
       // A setup changed while this run used the old one: its own request was folded into this job, so run again.
       const now = await findCaptureRow(db, capture.id);
       if (now && JSON.stringify(await runSetupOf(this.ctx.db, now)) !== JSON.stringify(setup) && (await enqueue(db, capture.id, 'reanalyse'))) this.nudge();
@@ -221,13 +221,13 @@ export class CaptureProcessor {
     } catch (err) {
       if (!this.running) return await this.giveBack(job);
       if (err instanceof IngestFailure && err.code !== 'internal') {
-        await storeFailure(db, job, this.workerId, { code: err.code, message: err.message, line: err.line });
+        await storeFailure(db, job, { code: err.code, message: err.message, line: err.line });
       } else if (job.attempts >= MAX_ATTEMPTS) {
-        await storeFailure(db, job, this.workerId, { code: 'internal', message: unexpectedFailure(capture.id, err) });
+        await storeFailure(db, job, { code: 'internal', message: unexpectedFailure(capture.id, err) });
       } else {
         // Worth another try (a worker that died, a lost connection); the details go to the log only.
         const note = unexpectedFailure(capture.id, err, `attempt ${job.attempts} failed`);
-        await db.update(jobs).set({ status: 'queued', lastError: note }).where(ownedBy(job.id, this.workerId));
+        await db.update(jobs).set({ status: 'queued', lastError: note }).where(ownedBy(job));
       }
     } finally {
       clearInterval(beat);
@@ -237,7 +237,7 @@ export class CaptureProcessor {
 
   private async giveBack(job: ClaimedJob): Promise<void> {
     if (!this.releaseOnStop) return;
-    await releaseJob(this.ctx.db, job, this.workerId);
+    await releaseJob(this.ctx.db, job);
     if (job.kind === 'ingest') await this.ctx.db.update(captures).set({ status: 'queued' }).where(and(eq(captures.id, job.captureId), eq(captures.status, 'processing')));
   }
 

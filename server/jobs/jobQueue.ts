@@ -1,3 +1,4 @@
+import { randomBytes } from 'node:crypto';
 import { and, eq, inArray, sql } from 'drizzle-orm';
 import type { Db, DbOrTx } from '../db/client';
 import { captures, jobs } from '../db/schema';
@@ -8,7 +9,15 @@ export interface ClaimedJob {
   kind: 'ingest' | 'reanalyse';
   /** Counting this claim: a job whose process died mid-run comes back with a higher count. */
   attempts: number;
+  /**
+   * This claim's mark in jobs.locked_by: the process's worker id and a nonce, so that a second claim of
+   * the job, even by the same process (its heartbeat lapsed while the database was away), owns it alone.
+   */
+  owner: string;
 }
+
+/** A new claim's owner mark, `<workerId>/<nonce>`. */
+const claimOwner = (workerId: string) => `${workerId}/${randomBytes(4).toString('hex')}`;
 
 /** A job is tried this often; a claim beyond it fails the job, so a poison file cannot come back forever. */
 export const MAX_ATTEMPTS = 3;
@@ -44,33 +53,34 @@ export async function claimJob(db: Db, workerId: string, staleSeconds: number): 
         .where(and(eq(jobs.captureId, row.captureId), eq(jobs.status, 'running'), sql`${jobs.id} <> ${row.id}`, sql`NOT (${stale})`))
         .limit(1);
       if (busy) return null;
+      const owner = claimOwner(workerId);
       await tx
         .update(jobs)
-        .set({ status: 'running', lockedBy: workerId, heartbeatAt: sql`NOW()`, attempts: sql`${jobs.attempts} + 1` })
+        .set({ status: 'running', lockedBy: owner, heartbeatAt: sql`NOW()`, attempts: sql`${jobs.attempts} + 1` })
         .where(eq(jobs.id, row.id));
-      return { ...row, attempts: row.attempts + 1 };
+      return { ...row, attempts: row.attempts + 1, owner };
     },
     { isolationLevel: 'read committed' },
   );
 }
 
 /** Tells other processes the job's worker is alive. */
-export async function heartbeat(db: Db, jobId: number, workerId: string): Promise<void> {
-  await db.update(jobs).set({ heartbeatAt: sql`NOW()` }).where(and(eq(jobs.id, jobId), eq(jobs.lockedBy, workerId)));
+export async function heartbeat(db: Db, job: ClaimedJob): Promise<void> {
+  await db.update(jobs).set({ heartbeatAt: sql`NOW()` }).where(and(eq(jobs.id, job.id), eq(jobs.lockedBy, job.owner)));
 }
 
-/** Where a job still belongs to this worker: the condition every finishing write carries. */
-export const ownedBy = (jobId: number, workerId: string) => and(eq(jobs.id, jobId), eq(jobs.lockedBy, workerId), eq(jobs.status, 'running'));
+/** Where a job still belongs to this claim: the condition every finishing write carries. */
+export const ownedBy = (job: ClaimedJob) => and(eq(jobs.id, job.id), eq(jobs.lockedBy, job.owner), eq(jobs.status, 'running'));
 
 /**
  * Gives a job back to the queue when its worker stops on purpose (a shutdown), without counting the
  * interrupted run as an attempt: the next start picks it up at once rather than after a stale period.
  */
-export async function releaseJob(db: Db, job: ClaimedJob, workerId: string): Promise<void> {
+export async function releaseJob(db: Db, job: ClaimedJob): Promise<void> {
   await db
     .update(jobs)
     .set({ status: 'queued', lockedBy: null, heartbeatAt: null, attempts: sql`GREATEST(${jobs.attempts} - 1, 0)` })
-    .where(ownedBy(job.id, workerId));
+    .where(ownedBy(job));
 }
 
 /**
@@ -101,6 +111,7 @@ export async function enqueue(db: Pick<Db, 'transaction'>, captureId: number, ki
  * ownership rules apply as to any claimed job, so another process takes it over only if this one dies.
  */
 export async function enqueueClaimed(tx: DbOrTx, captureId: number, workerId: string): Promise<ClaimedJob> {
-  const [{ id }] = await tx.insert(jobs).values({ captureId, kind: 'ingest', status: 'running', lockedBy: workerId, heartbeatAt: sql`NOW()`, attempts: 1 }).$returningId();
-  return { id, captureId, kind: 'ingest', attempts: 1 };
+  const owner = claimOwner(workerId);
+  const [{ id }] = await tx.insert(jobs).values({ captureId, kind: 'ingest', status: 'running', lockedBy: owner, heartbeatAt: sql`NOW()`, attempts: 1 }).$returningId();
+  return { id, captureId, kind: 'ingest', attempts: 1, owner };
 }

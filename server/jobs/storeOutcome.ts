@@ -50,11 +50,11 @@ async function writeChunks(writeBlobs: BlobWriter, captureId: number, stored: Ui
  * and only while the job is still this worker's: a worker that lost its job can neither overwrite the
  * new owner's samples nor leave its own behind it.
  */
-export function storeSamples(db: Db, job: ClaimedJob, workerId: string, stored: Uint8Array[][]): Promise<void> {
+export function storeSamples(db: Db, job: ClaimedJob, stored: Uint8Array[][]): Promise<void> {
   return retryOnDeadlock(() =>
     blobTransaction(db, async (tx, writeBlobs) => {
       await tx.select({ id: captures.id }).from(captures).where(eq(captures.id, job.captureId)).for('update');
-      const [owned] = await tx.update(jobs).set({ heartbeatAt: sql`NOW()` }).where(ownedBy(job.id, workerId));
+      const [owned] = await tx.update(jobs).set({ heartbeatAt: sql`NOW()` }).where(ownedBy(job));
       if (owned.affectedRows !== 1) throw new Error(`job ${job.id} was taken over by another worker`);
       await clearStoredResults(tx, job.captureId, true);
       await writeChunks(writeBlobs, job.captureId, stored);
@@ -64,14 +64,14 @@ export function storeSamples(db: Db, job: ClaimedJob, workerId: string, stored: 
 
 /**
  * Stores a finished run in one transaction: samples, channels, pyramid, finder suggestions, and the
- * capture marked ready, on condition that the job still belongs to this worker (else all is rolled back).
+ * capture marked ready, on condition that the job still belongs to this claim (else all is rolled back).
  * `stored` holds each channel's samples as Float32 chunks, packed by the worker that read the file, or
  * is null when storeSamples has stored them already.
  * The transaction starts only once the analysis is done: opened beside it, it held the capture row for
  * as long as the analysis ran, up to its time budget, and a delete or a database reset waited on it past
  * MariaDB's 50 s lock timeout. (storeSamples, beside the analysis, is a short transaction of its own.)
  */
-export function storeReady(db: Db, job: ClaimedJob, workerId: string, stored: Uint8Array[][] | null, r: IngestResult): Promise<void> {
+export function storeReady(db: Db, job: ClaimedJob, stored: Uint8Array[][] | null, r: IngestResult): Promise<void> {
   return retryOnDeadlock(() =>
     blobTransaction(db, async (tx, writeBlobs) => {
       // The capture row is locked first: the inserts below would take it shared (foreign keys) and the
@@ -80,7 +80,7 @@ export function storeReady(db: Db, job: ClaimedJob, workerId: string, stored: Ui
       await tx.select({ id: captures.id }).from(captures).where(eq(captures.id, job.captureId)).for('update');
       await clearStoredResults(tx, job.captureId, stored !== null);
       if (stored) await writeChunks(writeBlobs, job.captureId, stored);
-      const [done] = await tx.update(jobs).set({ status: 'done', finishedAt: sql`NOW()` }).where(ownedBy(job.id, workerId));
+      const [done] = await tx.update(jobs).set({ status: 'done', finishedAt: sql`NOW()` }).where(ownedBy(job));
       if (done.affectedRows !== 1) throw new Error(`job ${job.id} was taken over by another worker`);
       for (const [idx, c] of r.channels.entries()) {
         await tx.insert(channels).values({ captureId: job.captureId, idx, name: c.name.slice(0, 120), unit: c.unit.slice(0, 20), invalidCount: c.invalidCount, analysis: c.analysis });
@@ -124,11 +124,13 @@ export function storeReady(db: Db, job: ClaimedJob, workerId: string, stored: Ui
  * Ends a job that cannot succeed. An ingest leaves its capture failed with the (short) message and no
  * samples; a re-analysis leaves the capture as it was, ready with its last good results.
  */
-export function storeFailure(db: Db, job: ClaimedJob, workerId: string, failure: { code: string; message: string; line?: number }): Promise<void> {
+export function storeFailure(db: Db, job: ClaimedJob, failure: { code: string; message: string; line?: number }): Promise<void> {
   const message = shortMessage(failure.message);
   return retryOnDeadlock(() =>
     db.transaction(async (tx) => {
-      const [owned] = await tx.update(jobs).set({ status: 'failed', lastError: message, finishedAt: sql`NOW()` }).where(ownedBy(job.id, workerId));
+      // The capture row first, as storeSamples, storeReady and a delete take it, so none of them deadlocks with this.
+      await tx.select({ id: captures.id }).from(captures).where(eq(captures.id, job.captureId)).for('update');
+      const [owned] = await tx.update(jobs).set({ status: 'failed', lastError: message, finishedAt: sql`NOW()` }).where(ownedBy(job));
       if (owned.affectedRows !== 1 || job.kind === 'reanalyse') return;
       await clearStoredResults(tx, job.captureId, true);
       await tx.update(captures).set({ status: 'failed', errorCode: failure.code.slice(0, 40), errorMessage: message, errorLine: failure.line ?? null }).where(eq(captures.id, job.captureId));

@@ -2,6 +2,8 @@ import { eq, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { jobs } from '../../server/db/schema';
 import { CaptureProcessor } from '../../server/jobs/captureProcessor';
+import type { ClaimedJob } from '../../server/jobs/jobQueue';
+import { storeFailure, storeSamples } from '../../server/jobs/storeOutcome';
 import type { RunningServer } from '../../server/server';
 import { sineCsv, uploadText, waitSettled } from '../helpers/captures';
 import { ADMIN, resetDatabase, signedIn, startTestServer } from '../helpers/testServer';
@@ -48,7 +50,8 @@ describe('the capture queue', () => {
       // a sine's RMS is its peak over √2 (standard calculus)
       expect(analysis.channels[0].acRms).toBeCloseTo((1 + i) / Math.SQRT2, 6);
     }
-    const owners = new Set((await app.ctx.db.select({ by: jobs.lockedBy }).from(jobs)).map((r) => r.by));
+    // One owner per process: a claim's mark is the process's worker id and a nonce of the claim.
+    const owners = new Set((await app.ctx.db.select({ by: jobs.lockedBy }).from(jobs)).map((r) => r.by?.split('/')[0]));
     expect(owners.size).toBe(2);
   });
 
@@ -71,8 +74,24 @@ describe('the capture queue', () => {
       await second.stop();
     }
     const [job] = await jobRows(id);
-    expect(job).toMatchObject({ status: 'done', attempts: 2, lockedBy: second.workerId });
+    expect(job).toMatchObject({ status: 'done', attempts: 2 });
+    expect(job.lockedBy).toMatch(new RegExp(`^${second.workerId}/[0-9a-f]{8}$`));
     const [rows] = (await app.ctx.db.execute(sql`SELECT COUNT(*) AS n FROM channels WHERE capture_id = ${id}`)) as unknown as [{ n: number }[]];
     expect(Number(rows[0].n)).toBe(1);
+  });
+
+  it('a job claimed again, even by the same process, belongs to the new claim alone: the old one stores nothing', async () => {
+    const id = (await uploadText(eng, 'claimed-twice.csv', sineCsv(3, 50, 2000, 0.05))).body.id;
+    const [row] = await jobRows(id);
+    const first: ClaimedJob = { id: row.id, captureId: id, kind: 'ingest', attempts: 1, owner: 'one-process/00000001' };
+    // The first claim's heartbeat lapsed (a database outage, say) and the same process claimed the job again.
+    await app.ctx.db.update(jobs).set({ status: 'running', lockedBy: 'one-process/00000002', attempts: 2, heartbeatAt: sql`NOW()` }).where(eq(jobs.id, row.id));
+    await expect(storeSamples(app.ctx.db, first, [[new Uint8Array(8)]])).rejects.toThrow(/taken over/);
+    await storeFailure(app.ctx.db, first, { code: 'internal', message: 'the first claim gave up' });
+    expect((await jobRows(id))[0]).toMatchObject({ status: 'running', lockedBy: 'one-process/00000002', attempts: 2 });
+    const [chunks] = (await app.ctx.db.execute(sql`SELECT COUNT(*) AS n FROM sample_chunks WHERE capture_id = ${id}`)) as unknown as [{ n: number }[]];
+    expect(Number(chunks[0].n)).toBe(0);
+    expect((await eng.get(`/api/captures/${id}`)).body.status).not.toBe('failed');
+    await app.ctx.db.update(jobs).set({ status: 'done' }).where(eq(jobs.id, row.id));
   });
 });

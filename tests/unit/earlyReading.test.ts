@@ -33,7 +33,7 @@ describe('the reading of an upload as it arrives', () => {
     const { r, calls } = reading();
     r.arrived();
     expect(r.claimant()).toBe('worker-1');
-    r.adopt({ id: 1, captureId: 2, kind: 'ingest', attempts: 1 });
+    r.adopt({ id: 1, captureId: 2, kind: 'ingest', attempts: 1, owner: 'worker-1/0a1b2c3d' });
     vi.advanceTimersByTime(EARLY_READ_MAX_MS * 2);
     r.drop();
     expect(r.state).toBe('adopted');
@@ -64,7 +64,7 @@ describe('the reading of an upload as it arrives', () => {
     expect(r.claimant()).toBe('worker-1');
     // the time runs out while the capture is being stored
     vi.advanceTimersByTime(EARLY_READ_MAX_MS + 1);
-    r.adopt({ id: 1, captureId: 2, kind: 'ingest', attempts: 1 });
+    r.adopt({ id: 1, captureId: 2, kind: 'ingest', attempts: 1, owner: 'worker-1/0a1b2c3d' });
     expect(calls).toMatchObject({ adopted: 0, orphaned: 1 });
   });
 });
