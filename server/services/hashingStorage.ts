@@ -12,7 +12,7 @@ export interface HashedFile {
 }
 
 /** Who else sees the bytes of a file as they arrive (the reading of an upload), if anyone. */
-export type FileTap = (req: Request, file: Express.Multer.File) => ((chunk: Buffer) => void) | null;
+export type FileTap = (req: Request, file: Express.Multer.File) => ((chunk: Buffer) => Promise<void> | undefined) | null;
 
 /** Bytes gathered before one write to disk. */
 const WRITE_BATCH_BYTES = 1 << 20;
@@ -23,7 +23,7 @@ const WRITE_BATCH_BYTES = 1 << 20;
  * here (each wakes a thread-pool thread), and 9–13 ms gathered into 1 MiB. Read as an async iterator,
  * the source waits while a write is under way, so no more than a batch is held in memory.
  */
-async function writeGathered(source: AsyncIterable<Buffer>, target: string, onChunk: (chunk: Buffer) => void): Promise<void> {
+async function writeGathered(source: AsyncIterable<Buffer>, target: string, onChunk: (chunk: Buffer) => Promise<void> | undefined): Promise<void> {
   const file = await open(target, 'wx', 0o600);
   try {
     let batch: Buffer[] = [];
@@ -43,7 +43,8 @@ async function writeGathered(source: AsyncIterable<Buffer>, target: string, onCh
       size = 0;
     };
     for await (const chunk of source) {
-      onChunk(chunk);
+      // A reader of the upload that fell behind may ask the sender to wait: the source is not read meanwhile.
+      await onChunk(chunk);
       batch.push(chunk);
       size += chunk.length;
       if (size >= WRITE_BATCH_BYTES) await flush();
@@ -68,8 +69,8 @@ export function hashingDiskStorage(dir: string, tap?: FileTap): StorageEngine {
       let size = 0;
       writeGathered(file.stream, target, (chunk) => {
         hash.update(chunk);
-        also?.(chunk);
         size += chunk.length;
+        return also?.(chunk);
       }).then(
         // multer copies every property given here onto req.file.
         () => cb(null, { path: target, size, sha256: hash.digest('hex') } satisfies HashedFile as Partial<Express.Multer.File>),

@@ -20,6 +20,11 @@ export class IngestFailure extends Error {
 export interface UploadStream {
   /** Hands the next bytes on; false when the worker is too far behind to take more (drop the stream). */
   push(chunk: Uint8Array): boolean;
+  /**
+   * Null while the worker keeps up; once it is UNREAD_HIGH_BYTES behind, a promise that settles when it
+   * is back within UNREAD_LOW_BYTES (or the stream is dropped): the sender waits for it.
+   */
+  caughtUp(): Promise<void> | null;
   /** Forgets the reading (the upload failed, was a duplicate, or took too long to arrive). */
   drop(): void;
   parse(request: Omit<StreamParseRequest, 'stream'>, budgetMs: number): Promise<ReadCapture>;
@@ -27,6 +32,9 @@ export interface UploadStream {
 
 /** An upload arriving faster than its worker reads it may run this far ahead; then the reading is dropped. */
 const MAX_UNREAD_STREAM_BYTES = 64 * 1024 * 1024;
+/** Past this many unread bytes the sender is asked to wait (caughtUp), until the worker is within UNREAD_LOW_BYTES. */
+const UNREAD_HIGH_BYTES = 32 * 1024 * 1024;
+const UNREAD_LOW_BYTES = 8 * 1024 * 1024;
 
 interface PooledWorker {
   worker: Worker;
@@ -54,6 +62,8 @@ export class IngestWorkerPool {
   private nextStream = 1;
   /** Bytes each open upload stream's worker has read so far (it reports every few MiB). */
   private consumed = new Map<number, number>();
+  /** Per stream: the sender waiting for its worker to catch up, and from how many bytes sent. */
+  private catchUp = new Map<number, { sent: number; resolve: () => void }>();
   private pending = new Map<number, { resolve: (r: unknown) => void; reject: (e: Error) => void; owner: PooledWorker }>();
 
   constructor(private readonly size = 1) {}
@@ -72,7 +82,12 @@ export class IngestWorkerPool {
     const pooled: PooledWorker = { busy: 0, worker, ready: new Promise<void>((resolve) => (markReady = resolve)) };
     pooled.worker.on('message', (reply: IngestReply | { ready: true } | StreamProgress) => {
       if ('ready' in reply) return markReady();
-      if ('consumed' in reply) return void this.consumed.set(reply.stream, reply.consumed);
+      if ('consumed' in reply) {
+        this.consumed.set(reply.stream, reply.consumed);
+        const waiting = this.catchUp.get(reply.stream);
+        if (waiting && waiting.sent - reply.consumed <= UNREAD_LOW_BYTES) this.endCatchUp(reply.stream);
+        return;
+      }
       const p = this.pending.get(reply.id);
       if (!p) return;
       this.pending.delete(reply.id);
@@ -95,6 +110,11 @@ export class IngestWorkerPool {
     });
     pooled.worker.unref();
     return pooled;
+  }
+
+  private endCatchUp(stream: number): void {
+    this.catchUp.get(stream)?.resolve();
+    this.catchUp.delete(stream);
   }
 
   private leastBusy(): PooledWorker {
@@ -149,16 +169,26 @@ export class IngestWorkerPool {
         if (sent - (this.consumed.get(stream) ?? 0) > MAX_UNREAD_STREAM_BYTES) return false;
         // A copy the worker can own: the upload's chunk may share its memory with other data.
         const copy = new Uint8Array(chunk);
-        post({ stream, chunk: copy }, [copy.buffer]);
+        // Counted before the transfer, which leaves `copy` empty.
         sent += copy.length;
+        post({ stream, chunk: copy }, [copy.buffer]);
         return true;
+      },
+      caughtUp: () => {
+        if (sent - (this.consumed.get(stream) ?? 0) <= UNREAD_HIGH_BYTES) return null;
+        return new Promise<void>((resolve) => {
+          this.endCatchUp(stream);
+          this.catchUp.set(stream, { sent, resolve });
+        });
       },
       drop: () => {
         this.consumed.delete(stream);
+        this.endCatchUp(stream);
         post({ stream, drop: true });
       },
       parse: (request, budgetMs) => {
         this.consumed.delete(stream);
+        this.endCatchUp(stream);
         return this.run<ReadCapture>({ kind: 'streamParse', request: { ...request, stream } }, budgetMs, [], pooled);
       },
     };

@@ -1,13 +1,14 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { EARLY_READ_MAX_MS, EarlyReading } from '../../server/jobs/earlyReading';
+import { CATCH_UP_MAX_MS, EARLY_READ_MAX_MS, EarlyReading } from '../../server/jobs/earlyReading';
 import type { UploadStream } from '../../server/workers/IngestWorkerPool';
 
 /** The rules that keep an upload's reading from holding a processing slot longer than it pays. */
-function reading(accepts = () => true) {
+function reading(accepts = () => true, caughtUp: () => Promise<void> | null = () => null) {
   const pushed: number[] = [];
   const calls = { dropped: 0, released: 0, adopted: 0, orphaned: 0 };
   const stream: UploadStream = {
     push: (c) => (accepts() ? (pushed.push(c.length), true) : false),
+    caughtUp,
     drop: () => void calls.dropped++,
     parse: () => Promise.reject(new Error('not used')),
   };
@@ -66,5 +67,32 @@ describe('the reading of an upload as it arrives', () => {
     vi.advanceTimersByTime(EARLY_READ_MAX_MS + 1);
     r.adopt({ id: 1, captureId: 2, kind: 'ingest', attempts: 1, owner: 'worker-1/0a1b2c3d' });
     expect(calls).toMatchObject({ adopted: 0, orphaned: 1 });
+  });
+
+  it('has the sender wait while its worker is far behind, and go on once the worker has caught up', async () => {
+    let catchUp = () => undefined as void;
+    const behind = new Promise<void>((resolve) => (catchUp = resolve));
+    const { r, pushed } = reading(undefined, () => behind);
+    let waited = false;
+    const wait = r.push(new Uint8Array(100));
+    expect(wait).toBeInstanceOf(Promise);
+    void wait!.then(() => (waited = true));
+    await vi.advanceTimersByTimeAsync(CATCH_UP_MAX_MS / 2);
+    expect(waited).toBe(false);
+    catchUp();
+    await vi.advanceTimersByTimeAsync(0);
+    expect(waited).toBe(true);
+    expect(r.state).toBe('reading');
+    expect(pushed).toEqual([100]);
+  });
+
+  it('gives up a worker that does not catch up in time, and lets the upload go on without it', async () => {
+    const { r, calls } = reading(undefined, () => new Promise<void>(() => undefined));
+    const wait = r.push(new Uint8Array(100));
+    await vi.advanceTimersByTimeAsync(CATCH_UP_MAX_MS + 1);
+    await wait;
+    expect(r.state).toBe('dropped');
+    expect(calls).toMatchObject({ dropped: 1, released: 1 });
+    expect(r.push(new Uint8Array(100))).toBeUndefined();
   });
 });
