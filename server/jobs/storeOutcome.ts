@@ -47,8 +47,8 @@ async function writeChunks(writeBlobs: BlobWriter, captureId: number, stored: Ui
  * ready. Nothing reads them before storeReady marks the capture ready, and storeFailure removes them.
  * Not for a re-analysis: its capture stays readable meanwhile, and its samples and figures must change
  * together. The capture row is locked first, then the job's (the order of storeReady and of a delete),
- * and only while the job is still this worker's: a worker that lost its job can neither overwrite the
- * new owner's samples nor leave its own behind it.
+ * and only while the job still belongs to this claim: a claim that lost its job can neither overwrite
+ * the new owner's samples nor leave its own behind it.
  */
 export function storeSamples(db: Db, job: ClaimedJob, stored: Uint8Array[][]): Promise<void> {
   return retryOnDeadlock(() =>
