@@ -68,6 +68,11 @@ export class IngestWorkerPool {
 
   constructor(private readonly size = 1) {}
 
+  /** Tasks handed to the worker threads and not yet answered. */
+  get tasksInFlight(): number {
+    return this.pending.size;
+  }
+
   /** Starts the workers ahead of the first task, so its budget is not spent compiling. */
   warm(): void {
     while (this.workers.length < this.size) this.workers.push(this.spawn());

@@ -85,7 +85,9 @@ describe('fault: a worker thread dies', () => {
     const id = (await uploadText(eng, 'worker-dies.csv', longRecord())).body.id;
     p.nudge();
     await waitStatus(eng, id, 'processing');
-    // Every worker thread of the processor goes, as after a crash inside one.
+    // Once the file is in a worker thread (the status turns to processing a moment before), every worker
+    // thread of the processor goes, as after a crash inside one.
+    while (!p.slots.some((slot) => slot.tasksInFlight > 0)) await new Promise((r) => setTimeout(r, 2));
     await Promise.all(p.slots.map((slot) => slot.close()));
     expect((await waitSettled(eng, id, 60_000)).status).toBe('ready');
     expect(await jobOf(id)).toMatchObject({ status: 'done', attempts: 2 });
