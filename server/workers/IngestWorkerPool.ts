@@ -88,6 +88,8 @@ export class IngestWorkerPool {
     pooled.worker.on('message', (reply: IngestReply | { ready: true } | StreamProgress) => {
       if ('ready' in reply) return markReady();
       if ('consumed' in reply) {
+        // A report that arrives after its stream was finished or dropped must not bring its entry back.
+        if (!this.consumed.has(reply.stream)) return;
         this.consumed.set(reply.stream, reply.consumed);
         const waiting = this.catchUp.get(reply.stream);
         if (waiting && waiting.sent - reply.consumed <= UNREAD_LOW_BYTES) this.endCatchUp(reply.stream);
