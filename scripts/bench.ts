@@ -248,8 +248,8 @@ async function uploadAndWait(file: string, name: string, data?: string): Promise
 const readyCaptures = new Map<number, number>();
 // A running server has processed files before: warm its worker threads' JIT first, so the figure is
 // that of a server in use. V8 takes several runs of the analysis to optimise it fully (a channel's
-// analysis took 310 ms on its second run in a worker, 160 ms on its sixth), and each of the four
-// ingest workers sees only some of the channels. The first 1 M-row file's time is printed too.
+// analysis took 310 ms on its second run in a worker, 160 ms on its sixth), and each worker thread
+// sees only some of the channels. The first 1 M-row file's time is printed too.
 let firstMillion = 0;
 for (const rows of [300_000, 300_001, 1_000_001, 300_002, 300_003, 300_004, 300_005, 1_000_002]) {
   const warm = path.join(work, `warm-${rows}.csv`);
