@@ -60,10 +60,11 @@ export class IngestWorkerPool {
   private workers: PooledWorker[] = [];
   private nextId = 1;
   private nextStream = 1;
-  /** Bytes each open upload stream's worker has read so far (it reports every few MiB). */
-  private consumed = new Map<number, number>();
-  /** Per stream: the sender waiting for its worker to catch up, and from how many bytes sent. */
-  private catchUp = new Map<number, { sent: number; resolve: () => void }>();
+  /**
+   * Each open upload stream: the bytes sent to its worker, those the worker has read (it reports every
+   * few MiB), and the sender waiting for it to catch up, if any.
+   */
+  private streams = new Map<number, { sent: number; consumed: number; wake: (() => void) | null }>();
   private pending = new Map<number, { resolve: (r: unknown) => void; reject: (e: Error) => void; owner: PooledWorker }>();
 
   constructor(private readonly size = 1) {}
@@ -88,11 +89,11 @@ export class IngestWorkerPool {
     pooled.worker.on('message', (reply: IngestReply | { ready: true } | StreamProgress) => {
       if ('ready' in reply) return markReady();
       if ('consumed' in reply) {
-        // A report that arrives after its stream was finished or dropped must not bring its entry back.
-        if (!this.consumed.has(reply.stream)) return;
-        this.consumed.set(reply.stream, reply.consumed);
-        const waiting = this.catchUp.get(reply.stream);
-        if (waiting && waiting.sent - reply.consumed <= UNREAD_LOW_BYTES) this.endCatchUp(reply.stream);
+        // A report that arrives after its stream was finished or dropped finds nothing to update.
+        const open = this.streams.get(reply.stream);
+        if (!open) return;
+        open.consumed = reply.consumed;
+        if (open.sent - open.consumed <= UNREAD_LOW_BYTES) this.wakeSender(reply.stream);
         return;
       }
       const p = this.pending.get(reply.id);
@@ -119,9 +120,16 @@ export class IngestWorkerPool {
     return pooled;
   }
 
-  private endCatchUp(stream: number): void {
-    this.catchUp.get(stream)?.resolve();
-    this.catchUp.delete(stream);
+  private wakeSender(stream: number): void {
+    const open = this.streams.get(stream);
+    open?.wake?.();
+    if (open) open.wake = null;
+  }
+
+  /** Forgets a stream (finished or dropped); a sender still waiting on it goes on. */
+  private closeStream(stream: number): void {
+    this.wakeSender(stream);
+    this.streams.delete(stream);
   }
 
   private leastBusy(): PooledWorker {
@@ -166,36 +174,34 @@ export class IngestWorkerPool {
     const post = (m: StreamMessage, transfer: ArrayBuffer[] = []) => {
       if (this.workers.includes(pooled)) pooled.worker.postMessage(m, transfer);
     };
-    let sent = 0;
-    this.consumed.set(stream, 0);
+    const open = { sent: 0, consumed: 0, wake: null as (() => void) | null };
+    this.streams.set(stream, open);
     post({ stream, open: options });
     return {
       push: (chunk) => {
         // The bytes waiting for the worker are memory on top of the samples: past the bound, the
         // reading gives up (the file is read from disk once stored) rather than queue without end.
-        if (sent - (this.consumed.get(stream) ?? 0) > MAX_UNREAD_STREAM_BYTES) return false;
+        if (open.sent - open.consumed > MAX_UNREAD_STREAM_BYTES) return false;
         // A copy the worker can own: the upload's chunk may share its memory with other data.
         const copy = new Uint8Array(chunk);
         // Counted before the transfer, which leaves `copy` empty.
-        sent += copy.length;
+        open.sent += copy.length;
         post({ stream, chunk: copy }, [copy.buffer]);
         return true;
       },
       caughtUp: () => {
-        if (sent - (this.consumed.get(stream) ?? 0) <= UNREAD_HIGH_BYTES) return null;
+        if (open.sent - open.consumed <= UNREAD_HIGH_BYTES) return null;
         return new Promise<void>((resolve) => {
-          this.endCatchUp(stream);
-          this.catchUp.set(stream, { sent, resolve });
+          this.wakeSender(stream);
+          open.wake = resolve;
         });
       },
       drop: () => {
-        this.consumed.delete(stream);
-        this.endCatchUp(stream);
+        this.closeStream(stream);
         post({ stream, drop: true });
       },
       parse: (request, budgetMs) => {
-        this.consumed.delete(stream);
-        this.endCatchUp(stream);
+        this.closeStream(stream);
         return this.run<ReadCapture>({ kind: 'streamParse', request: { ...request, stream } }, budgetMs, [], pooled);
       },
     };
