@@ -144,9 +144,9 @@ export interface AnalyseRequest {
 export function analyseChannel(req: AnalyseRequest): IngestedChannel {
   const t0 = performance.now();
   const c = req.channel;
-  // One clipping search serves the analysis warnings and the anomaly finder (about 10 ms per 1 M samples).
-  const { min, max } = sampleRange(c.samples);
-  const clipping = findClipping(c.samples, 0, c.samples.length, min, max);
+  // One range and clipping search serves the analysis warnings and the anomaly finder (about 10 ms per 1 M samples).
+  const range = sampleRange(c.samples);
+  const clipping = findClipping(c.samples, 0, c.samples.length, range.min, range.max);
   const result = analyzeValidSpan(c.samples, req.sampleRate, { t0: req.t0, clipping });
   if (!result.ok) throw new CsvError(`Channel ${c.name}: ${result.reason}`, c.firstInvalidLine ?? undefined);
   const events = channelVoltageEvents(c.samples, req.sampleRate, req.t0, c.unit, result.analysis.frequency, req.declared ?? null);
@@ -155,7 +155,7 @@ export function analyseChannel(req: AnalyseRequest): IngestedChannel {
     unit: c.unit,
     invalidCount: c.invalidCount,
     analysis: result.analysis,
-    suggestions: [...findAnomalies(c.samples, req.sampleRate, req.t0, result.analysis.frequency, { clipping }), ...(events?.suggestions ?? [])],
+    suggestions: [...findAnomalies(c.samples, req.sampleRate, req.t0, result.analysis.frequency, { clipping, range }), ...(events?.suggestions ?? [])],
     voltageEvents: events?.found ?? null,
     overviews: overviewPyramid(c.samples).map((l) => ({ bucketSize: l.bucketSize, data: Buffer.from(l.minMax.buffer) })),
   };

@@ -23,6 +23,8 @@ export interface AnomalyOptions {
   frequencyPercent?: number;
   /** The record's clipping when already found (findClipping over all of x with its extremes). */
   clipping?: ClippingFinding[];
+  /** The record's extremes when already known (sampleRange of x). */
+  range?: { min: number; max: number };
 }
 
 const MAX_PER_KIND = 20;
@@ -64,7 +66,7 @@ export function findAnomalies(x: Samples, sampleRate: number, t0: number, freque
   const freqTol = (options.frequencyPercent ?? 1) / 100;
   const t = (i: number) => t0 + i / sampleRate;
   const out: AnomalySuggestion[] = [];
-  const { min, max } = sampleRange(x);
+  const { min, max } = options.range ?? sampleRange(x);
   const span = max - min;
 
   // Clipping: runs of three or more samples on a rail that findClipping judged to be clipped.
